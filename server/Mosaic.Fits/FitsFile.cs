@@ -1,4 +1,5 @@
 using Microsoft.Win32.SafeHandles;
+using Mosaic.Fits.Parsing;
 
 namespace Mosaic.Fits;
 
@@ -16,7 +17,23 @@ public sealed class FitsFile : IDisposable
     public IReadOnlyList<Hdu> Hdus { get; }
 
     /// <summary>Opens and parses every header. Throws <see cref="FitsFormatException"/> for a malformed file.</summary>
-    public static FitsFile Open(string path) => throw new NotImplementedException();
+    public static FitsFile Open(string path)
+    {
+        ArgumentException.ThrowIfNullOrEmpty(path);
+        // ReadWrite | Delete sharing: the file may be replaced or removed while served; reads then fail cleanly.
+        var handle = File.OpenHandle(path, FileMode.Open, FileAccess.Read, FileShare.ReadWrite | FileShare.Delete);
+        try
+        {
+            var length = RandomAccess.GetLength(handle);
+            var hdus = FileScanner.Scan(handle, path, length);
+            return new FitsFile(path, handle, length, hdus);
+        }
+        catch
+        {
+            handle.Dispose();
+            throw;
+        }
+    }
 
     public void Dispose() => Handle.Dispose();
 }

@@ -1,4 +1,8 @@
+using System.Buffers;
+using System.Buffers.Binary;
+using System.Runtime.InteropServices;
 using Microsoft.Win32.SafeHandles;
+using Mosaic.Fits.Pixels;
 
 namespace Mosaic.Fits;
 
@@ -9,12 +13,18 @@ namespace Mosaic.Fits;
 /// </summary>
 public sealed class ImagePlane
 {
+    /// <summary>Bytes per positional read on the streaming path: large enough for GB/s, small enough to stay in cache.</summary>
+    private const int ChunkBytes = 1 << 20;
+
+    private readonly SampleScaling _scaling;
+
     // CONTRACT (filled in by the FITS reader work): constructor is internal to the library.
     internal ImagePlane(SafeFileHandle handle, string filePath, int hduIndex, int bitPix, int width, int height,
         double bScale, double bZero, long? blank, long dataOffset)
     {
         Handle = handle; FilePath = filePath; HduIndex = hduIndex; BitPix = bitPix; Width = width; Height = height;
         BScale = bScale; BZero = bZero; Blank = blank; DataOffset = dataOffset;
+        _scaling = new SampleScaling(bitPix, bScale, bZero, blank);
     }
 
     internal SafeFileHandle Handle { get; }
@@ -31,11 +41,100 @@ public sealed class ImagePlane
     public int BytesPerPixel => Math.Abs(BitPix) / 8;
 
     /// <summary>Physical values (BZERO + BSCALE * stored) of row y, columns [x, x + destination.Length); NaN where BLANK or NaN.</summary>
-    public void ReadRow(int y, int x, Span<float> destination) => throw new NotImplementedException();
+    public void ReadRow(int y, int x, Span<float> destination)
+    {
+        ArgumentOutOfRangeException.ThrowIfNegative(y);
+        ArgumentOutOfRangeException.ThrowIfGreaterThanOrEqual(y, Height);
+        ArgumentOutOfRangeException.ThrowIfNegative(x);
+        ArgumentOutOfRangeException.ThrowIfGreaterThan(x, Width);
+        if (destination.Length > Width - x)
+            throw new ArgumentOutOfRangeException(nameof(destination), destination.Length,
+                $"columns [{x}, {x + (long)destination.Length}) run past the row width {Width}.");
+        ReadSamples((long)y * Width + x, destination);
+    }
 
     /// <summary>Full-width rows [y, y + rowCount) into destination (rowCount * Width floats), row y first.</summary>
-    public void ReadRows(int y, int rowCount, Span<float> destination) => throw new NotImplementedException();
+    public void ReadRows(int y, int rowCount, Span<float> destination)
+    {
+        ArgumentOutOfRangeException.ThrowIfNegative(y);
+        ArgumentOutOfRangeException.ThrowIfNegative(rowCount);
+        if ((long)y + rowCount > Height)
+            throw new ArgumentOutOfRangeException(nameof(rowCount), rowCount, $"rows [{y}, {(long)y + rowCount}) run past the height {Height}.");
+        var needed = (long)rowCount * Width;
+        if (destination.Length < needed)
+            throw new ArgumentOutOfRangeException(nameof(destination), destination.Length, $"{rowCount} rows need {needed} floats.");
+        ReadSamples((long)y * Width, destination[..(int)needed]);
+    }
 
     /// <summary>One physical value in double precision (for BITPIX 32, 64, -64 a float would round); NaN where masked.</summary>
-    public double ReadValue(int x, int y) => throw new NotImplementedException();
+    public double ReadValue(int x, int y)
+    {
+        ArgumentOutOfRangeException.ThrowIfNegative(x);
+        ArgumentOutOfRangeException.ThrowIfGreaterThanOrEqual(x, Width);
+        ArgumentOutOfRangeException.ThrowIfNegative(y);
+        ArgumentOutOfRangeException.ThrowIfGreaterThanOrEqual(y, Height);
+        Span<byte> raw = stackalloc byte[8];
+        raw = raw[..BytesPerPixel];
+        ReadExactly(raw, DataOffset + ((long)y * Width + x) * BytesPerPixel);
+        return SampleDecoder.DecodeOne(BitPix, raw, _scaling);
+    }
+
+    private void ReadSamples(long firstSample, Span<float> destination)
+    {
+        if (destination.IsEmpty) return;
+        var offset = DataOffset + firstSample * BytesPerPixel;
+
+        if (BitPix == -32 && _scaling.Mode == ScalingMode.Identity)
+        {
+            // Stored floats need only a byte swap: read straight into the destination, in spans a byte count can index.
+            const int DirectFloats = 1 << 24;
+            for (var done = 0; done < destination.Length; done += DirectFloats)
+            {
+                var part = destination.Slice(done, Math.Min(DirectFloats, destination.Length - done));
+                ReadExactly(MemoryMarshal.AsBytes(part), offset + (long)done * sizeof(float));
+                var words = MemoryMarshal.Cast<float, uint>(part);
+                BinaryPrimitives.ReverseEndianness(words, words);
+            }
+            return;
+        }
+
+        var perChunk = ChunkBytes / BytesPerPixel;
+        var scratch = ArrayPool<byte>.Shared.Rent((int)Math.Min(ChunkBytes, (long)destination.Length * BytesPerPixel));
+        try
+        {
+            for (var done = 0; done < destination.Length; done += perChunk)
+            {
+                var count = Math.Min(perChunk, destination.Length - done);
+                var chunk = scratch.AsSpan(0, count * BytesPerPixel);
+                ReadExactly(chunk, offset + (long)done * BytesPerPixel);
+                SampleDecoder.Decode(BitPix, chunk, destination.Slice(done, count), _scaling);
+            }
+        }
+        finally
+        {
+            ArrayPool<byte>.Shared.Return(scratch);
+        }
+    }
+
+    private void ReadExactly(Span<byte> buffer, long offset)
+    {
+        ObjectDisposedException.ThrowIf(Handle.IsClosed, this);
+        var done = 0;
+        while (done < buffer.Length)
+        {
+            int n;
+            try
+            {
+                n = RandomAccess.Read(Handle, buffer[done..], offset + done);
+            }
+            catch (IOException e)
+            {
+                throw new FitsFormatException(FilePath, HduIndex, null, $"cannot read pixel data at byte {offset + done}: {e.Message}", e);
+            }
+            if (n == 0)
+                throw new FitsFormatException(FilePath, HduIndex, null,
+                    $"truncated data: the file ends before byte {offset + buffer.Length} (it was cut short or rewritten after opening)");
+            done += n;
+        }
+    }
 }

@@ -1,3 +1,8 @@
+using System.Buffers;
+using System.Buffers.Binary;
+using System.Runtime.InteropServices;
+using System.Text;
+
 namespace Mosaic.Fits.Writing;
 
 /// <summary>
@@ -7,16 +12,141 @@ namespace Mosaic.Fits.Writing;
 /// </summary>
 public sealed class FitsWriter : IDisposable
 {
-    public FitsWriter(Stream stream, bool leaveOpen = false) => throw new NotImplementedException();
+    private const int BlockSize = 2880;
+    private const int ChunkBytes = 1 << 20;
+
+    private readonly Stream _stream;
+    private readonly bool _leaveOpen;
+    private bool _primaryWritten;
+    private bool _disposed;
+
+    public FitsWriter(Stream stream, bool leaveOpen = false)
+    {
+        ArgumentNullException.ThrowIfNull(stream);
+        if (!stream.CanWrite) throw new ArgumentException("The stream must be writable.", nameof(stream));
+        _stream = stream;
+        _leaveOpen = leaveOpen;
+    }
 
     /// <summary>A primary HDU without data (NAXIS = 0, EXTEND = T), for multi-extension files.</summary>
-    public void WriteEmptyPrimary(IEnumerable<HeaderCard> cards) => throw new NotImplementedException();
+    public void WriteEmptyPrimary(IEnumerable<HeaderCard> cards)
+    {
+        ObjectDisposedException.ThrowIf(_disposed, this);
+        if (_primaryWritten) throw new InvalidOperationException("The primary HDU has already been written.");
+        WriteHeader(cards, bitPix: 8, axes: []);
+    }
 
     /// <summary>A BITPIX -32 image (the primary HDU if none has been written yet, else an IMAGE extension). Row 0 of data is FITS y = 1.</summary>
-    public void WriteFloatImage(IEnumerable<HeaderCard> cards, int width, int height, ReadOnlySpan<float> data) => throw new NotImplementedException();
+    public void WriteFloatImage(IEnumerable<HeaderCard> cards, int width, int height, ReadOnlySpan<float> data)
+    {
+        ObjectDisposedException.ThrowIf(_disposed, this);
+        ArgumentOutOfRangeException.ThrowIfNegative(width);
+        ArgumentOutOfRangeException.ThrowIfNegative(height);
+        if ((long)width * height != data.Length)
+            throw new ArgumentException($"data holds {data.Length} values but width x height is {(long)width * height}.", nameof(data));
+
+        WriteHeader(cards, bitPix: -32, axes: [width, height]);
+        var bytes = ArrayPool<byte>.Shared.Rent(ChunkBytes);
+        try
+        {
+            var perChunk = ChunkBytes / sizeof(float);
+            for (var start = 0; start < data.Length; start += perChunk)
+            {
+                var n = Math.Min(perChunk, data.Length - start);
+                var source = MemoryMarshal.Cast<float, uint>(data.Slice(start, n));
+                var target = MemoryMarshal.Cast<byte, uint>(bytes.AsSpan(0, n * sizeof(float)));
+                BinaryPrimitives.ReverseEndianness(source, target);
+                _stream.Write(bytes, 0, n * sizeof(float));
+            }
+        }
+        finally
+        {
+            ArrayPool<byte>.Shared.Return(bytes);
+        }
+        PadData((long)data.Length * sizeof(float));
+    }
 
     /// <summary>Any BITPIX, with data already big-endian in the stored type (for cutouts that keep the original type).</summary>
-    public void WriteRawImage(IEnumerable<HeaderCard> cards, int bitPix, IReadOnlyList<long> axes, ReadOnlySpan<byte> bigEndianData) => throw new NotImplementedException();
+    public void WriteRawImage(IEnumerable<HeaderCard> cards, int bitPix, IReadOnlyList<long> axes, ReadOnlySpan<byte> bigEndianData)
+    {
+        ObjectDisposedException.ThrowIf(_disposed, this);
+        ArgumentNullException.ThrowIfNull(axes);
+        if (bitPix is not (8 or 16 or 32 or 64 or -32 or -64))
+            throw new ArgumentOutOfRangeException(nameof(bitPix), bitPix, "BITPIX must be 8, 16, 32, 64, -32 or -64 (FITS 4.0 table 8).");
+        if (axes.Count > 999)
+            throw new ArgumentOutOfRangeException(nameof(axes), axes.Count, "NAXIS must be at most 999 (FITS 4.0 section 4.4.1.1).");
+        long expected = axes.Count == 0 ? 0 : Math.Abs(bitPix) / 8;
+        try
+        {
+            foreach (var n in axes)
+            {
+                ArgumentOutOfRangeException.ThrowIfNegative(n, nameof(axes));
+                expected = checked(expected * n);
+            }
+        }
+        catch (OverflowException)
+        {
+            throw new ArgumentException("The product of the axis lengths overflows 64 bits.", nameof(axes));
+        }
+        if (expected != bigEndianData.Length)
+            throw new ArgumentException($"bigEndianData holds {bigEndianData.Length} bytes but the axes and BITPIX need {expected}.", nameof(bigEndianData));
 
-    public void Dispose() => throw new NotImplementedException();
+        WriteHeader(cards, bitPix, axes);
+        _stream.Write(bigEndianData);
+        PadData(bigEndianData.Length);
+    }
+
+    public void Dispose()
+    {
+        if (_disposed) return;
+        _disposed = true;
+        _stream.Flush();
+        if (!_leaveOpen) _stream.Dispose();
+    }
+
+    private void WriteHeader(IEnumerable<HeaderCard> cards, int bitPix, IReadOnlyList<long> axes)
+    {
+        ArgumentNullException.ThrowIfNull(cards);
+        var primary = !_primaryWritten;
+        var sb = new StringBuilder(BlockSize);
+        CardFormatter.Append(sb, primary ? new HeaderCard("SIMPLE", true, "conforms to FITS standard")
+                                         : new HeaderCard("XTENSION", "IMAGE", "image extension"));
+        CardFormatter.Append(sb, new HeaderCard("BITPIX", (long)bitPix, "bits per data value"));
+        CardFormatter.Append(sb, new HeaderCard("NAXIS", (long)axes.Count, "number of axes"));
+        for (var i = 0; i < axes.Count; i++)
+            CardFormatter.Append(sb, new HeaderCard($"NAXIS{i + 1}", axes[i], null));
+        if (primary) CardFormatter.Append(sb, new HeaderCard("EXTEND", true, "extensions may follow"));
+        else
+        {
+            CardFormatter.Append(sb, new HeaderCard("PCOUNT", 0L, null));
+            CardFormatter.Append(sb, new HeaderCard("GCOUNT", 1L, null));
+        }
+
+        foreach (var card in cards)
+        {
+            ArgumentNullException.ThrowIfNull(card, nameof(cards));
+            if (KeywordRules.IsWriterOwned(card.Keyword))
+                throw new ArgumentException($"Keyword '{card.Keyword}' is written by FitsWriter itself and cannot be given as a card.", nameof(cards));
+            if (bitPix < 0 && card.Keyword == "BLANK")
+                throw new ArgumentException("BLANK is only for integer data; floating-point images mark missing pixels with NaN (FITS 4.0 section 4.4.2.5).", nameof(cards));
+            CardFormatter.Append(sb, card);
+        }
+        sb.Append("END".PadRight(CardFormatter.CardLength));
+        var padded = (sb.Length + BlockSize - 1) / BlockSize * BlockSize;
+        sb.Append(' ', padded - sb.Length);
+
+        // Everything was validated as printable ASCII, so one char is one byte.
+        var bytes = Encoding.ASCII.GetBytes(sb.ToString());
+        _stream.Write(bytes);
+        _primaryWritten = true;
+    }
+
+    private void PadData(long length)
+    {
+        var rest = (int)(length % BlockSize);
+        if (rest == 0) return;
+        Span<byte> zeros = stackalloc byte[BlockSize - rest];
+        zeros.Clear();
+        _stream.Write(zeros);
+    }
 }

@@ -1,17 +1,57 @@
-using Mosaic.Imaging.Statistics;
+using Mosaic.Imaging.Display.Limits;
+using Mosaic.Imaging.Display.Palettes;
+using Mosaic.Imaging.Display.Stretches;
 using Mosaic.Imaging.Rendering;
+using Mosaic.Imaging.Statistics;
 
 namespace Mosaic.Imaging.Display;
 
-/// <summary>CONTRACT STUB: how a viewer wants values shown: value limits, then a stretch, then a palette.</summary>
+/// <summary>How a viewer wants values shown: value limits, then a stretch, then a palette. Equal settings compare equal.</summary>
 public sealed record DisplaySettings
 {
+    /// <summary>Format tag at the head of <see cref="CanonicalKey"/>: bump it when the meaning of a key changes so cached tiles are not reused.</summary>
+    private const string KeyVersion = "d1";
+
+    /// <summary>Lower limit: this many MAD sigmas under the median, so the sky noise shows as texture above black.</summary>
+    public const double DefaultSigmasBelow = 2;
+
+    /// <summary>Upper limit percentile: only the brightest pixels of bright sources clip to white.</summary>
+    public const double DefaultUpperPercent = 99.9;
+
+    /// <summary>asinh softening in MAD sigmas: faint structure a few sigma above the sky stays near linear.</summary>
+    public const double DefaultSoftSigmas = 3;
+
     /// <summary>asinh with field-wide limits from the band's histogram: shows a field well without tuning.</summary>
     public static DisplaySettings Default { get; } = new();
 
-    /// <summary>A stable text form, the same for equal settings: part of tile cache keys and ETags.</summary>
-    public string CanonicalKey => throw new NotImplementedException();
+    public IValueLimits Limits
+    {
+        get;
+        init => field = value ?? throw new ArgumentNullException(nameof(Limits), "Limits must be given");
+    } = new CombinedLimits(new RobustLimits(DefaultSigmasBelow, DefaultSigmasBelow), new PercentileLimits(0, DefaultUpperPercent));
+
+    public IStretch Stretch
+    {
+        get;
+        init => field = value ?? throw new ArgumentNullException(nameof(Stretch), "Stretch must be given");
+    } = new AsinhStretch(Softening.Sigmas(DefaultSoftSigmas));
+
+    public IPalette Palette
+    {
+        get;
+        init => field = value ?? throw new ArgumentNullException(nameof(Palette), "Palette must be given");
+    } = new GrayPalette();
+
+    /// <summary>A stable text form, the same for equal settings: part of tile cache keys and ETags. No '/', quote or space.</summary>
+    public string CanonicalKey => $"{KeyVersion}:{Limits.CanonicalKey};{Stretch.CanonicalKey};{Palette.CanonicalKey}";
 
     /// <summary>Limits resolved against the band's field-wide statistics, compiled for the tile loop.</summary>
-    public ToneMap Compile(BandStatistics statistics, ValueHistogram histogram) => throw new NotImplementedException();
+    public ToneMap Compile(BandStatistics statistics, ValueHistogram histogram)
+    {
+        ArgumentNullException.ThrowIfNull(statistics);
+        ArgumentNullException.ThrowIfNull(histogram);
+        var limits = Limits.Resolve(statistics, histogram);
+        var curve = Stretch.Resolve(new StretchContext(limits, statistics, histogram));
+        return ToneMap.Create(limits, curve, Palette);
+    }
 }

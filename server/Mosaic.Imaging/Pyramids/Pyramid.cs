@@ -1,23 +1,202 @@
+using System.Runtime.InteropServices;
+using Microsoft.Win32.SafeHandles;
 using Mosaic.Fits;
 using Mosaic.Imaging.Statistics;
 
 namespace Mosaic.Imaging.Pyramids;
 
-/// <summary>CONTRACT STUB: a built pyramid: the native level read from the source plane, reduced levels from the cache folder.</summary>
+/// <summary>
+/// A built pyramid: the native level read from the source plane, reduced levels from the cache folder, one
+/// positional read per tile. Level coordinates are 0-based and top-anchored (row 0 is the top of the image).
+/// Thread-safe.
+/// </summary>
 public sealed class Pyramid : IDisposable
 {
-    private Pyramid(PyramidGeometry geometry, ValueHistogram histogram) { Geometry = geometry; Histogram = histogram; }
+    private const int T = PyramidGeometry.TileSize;
+
+    private readonly ImagePlane _native;
+    private readonly SafeFileHandle[] _levels;
+    private volatile bool _disposed;
+
+    private Pyramid(PyramidGeometry geometry, ValueHistogram histogram, ImagePlane native, SafeFileHandle[] levels)
+    {
+        Geometry = geometry;
+        Histogram = histogram;
+        Statistics = BandStatistics.From(histogram);
+        _native = native;
+        _levels = levels;
+    }
 
     public PyramidGeometry Geometry { get; }
 
     /// <summary>Histogram of the native pixels.</summary>
     public ValueHistogram Histogram { get; }
 
+    /// <summary>Field-wide statistics of the native pixels, from <see cref="Histogram"/>.</summary>
+    public BandStatistics Statistics { get; }
+
     /// <summary>Opens a pyramid built by <see cref="PyramidBuilder"/>; InvalidDataException where the folder holds no complete build for this plane.</summary>
-    public static Pyramid Open(string directory, ImagePlane native) => throw new NotImplementedException();
+    public static Pyramid Open(string directory, ImagePlane native)
+    {
+        ArgumentException.ThrowIfNullOrWhiteSpace(directory);
+        ArgumentNullException.ThrowIfNull(native);
+        PyramidLayout.EnsureLittleEndian();
+        var manifest = PyramidManifest.Read(Path.Combine(directory, PyramidLayout.ManifestFile));
+        var geometry = new PyramidGeometry(native.Width, native.Height);
+        if (manifest.Width != native.Width || manifest.Height != native.Height || manifest.MaxZoom != geometry.MaxZoom)
+            throw new InvalidDataException($"pyramid in {directory} is for a {manifest.Width}x{manifest.Height} image; the plane is {native.Width}x{native.Height}");
+        if (manifest.SourceBitPix != native.BitPix)
+            throw new InvalidDataException($"pyramid in {directory} was built from BITPIX {manifest.SourceBitPix}; the plane has BITPIX {native.BitPix}");
 
-    /// <summary>One 256x256 tile of float values, row 0 at the top; NaN for masked pixels and outside the image.</summary>
-    public void ReadTile(int z, int x, int y, Span<float> destination) => throw new NotImplementedException();
+        var histogram = LoadHistogram(Path.Combine(directory, PyramidLayout.HistogramFile));
+        if (histogram.FiniteCount + histogram.MaskedCount != (long)native.Width * native.Height)
+            throw new InvalidDataException($"pyramid histogram in {directory} counts {histogram.FiniteCount + histogram.MaskedCount} pixels; the plane has {(long)native.Width * native.Height}");
 
-    public void Dispose() { }
+        var levels = new SafeFileHandle[geometry.MaxZoom];
+        try
+        {
+            for (var z = 0; z < levels.Length; z++) levels[z] = OpenLevel(directory, geometry, z);
+        }
+        catch
+        {
+            foreach (var level in levels) level?.Dispose();
+            throw;
+        }
+        return new Pyramid(geometry, histogram, native, levels);
+    }
+
+    /// <summary>One 256x256 tile of float values (the first 65,536 of destination), row 0 at the top; NaN for masked pixels and outside the image.</summary>
+    public void ReadTile(int z, int x, int y, Span<float> destination)
+    {
+        ObjectDisposedException.ThrowIf(_disposed, this);
+        if (!Geometry.Contains(z, x, y))
+            throw new ArgumentOutOfRangeException(nameof(z), $"tile {z}/{x}/{y} lies outside the grid (zoom 0..{Geometry.MaxZoom})");
+        if (destination.Length < PyramidLayout.TilePixels)
+            throw new ArgumentException($"a tile needs {PyramidLayout.TilePixels} floats; destination holds {destination.Length}", nameof(destination));
+        var tile = destination[..PyramidLayout.TilePixels];
+        if (z == Geometry.MaxZoom) ReadNative(x * T, y * T, T, T, tile);
+        else ReadExactly(_levels[z], MemoryMarshal.AsBytes(tile), PyramidLayout.TileOffset(Geometry, z, x, y));
+    }
+
+    /// <summary>
+    /// Level-z pixels [left, left + width) x [top, top + height) (top-anchored) into destination, row-major with
+    /// the top row first; NaN outside the level. One positional read per row and tile crossed.
+    /// </summary>
+    public void ReadRegion(int z, int left, int top, int width, int height, Span<float> destination)
+    {
+        ObjectDisposedException.ThrowIf(_disposed, this);
+        if (z < 0 || z > Geometry.MaxZoom) throw new ArgumentOutOfRangeException(nameof(z), z, $"zoom runs from 0 to {Geometry.MaxZoom}");
+        if (width < 0 || height < 0) throw new ArgumentOutOfRangeException(nameof(width), "a region cannot have a negative size");
+        if (destination.Length < (long)width * height)
+            throw new ArgumentException($"a {width}x{height} region needs {(long)width * height} floats; destination holds {destination.Length}", nameof(destination));
+        var region = destination[..(width * height)];
+        if (z == Geometry.MaxZoom)
+        {
+            ReadNative(left, top, width, height, region);
+            return;
+        }
+        int levelWidth = Geometry.LevelWidth(z), levelHeight = Geometry.LevelHeight(z);
+        int c0 = Math.Clamp(left, 0, levelWidth), c1 = (int)Math.Clamp((long)left + width, 0, levelWidth);
+        for (var j = 0; j < height; j++)
+        {
+            var row = region.Slice(j * width, width);
+            var r = (long)top + j;
+            if (r < 0 || r >= levelHeight || c0 >= c1)
+            {
+                row.Fill(float.NaN);
+                continue;
+            }
+            row[..(c0 - left)].Fill(float.NaN);
+            row[(c1 - left)..].Fill(float.NaN);
+            var ty = (int)r / T;
+            for (var c = c0; c < c1;)
+            {
+                var tx = c / T;
+                var end = Math.Min(c1, (tx + 1) * T);
+                var offset = PyramidLayout.TileOffset(Geometry, z, tx, ty) + ((long)((int)r % T) * T + (c - tx * T)) * sizeof(float);
+                ReadExactly(_levels[z], MemoryMarshal.AsBytes(row[(c - left)..(end - left)]), offset);
+                c = end;
+            }
+        }
+    }
+
+    /// <summary>One level-z pixel (column i, row j from the top); NaN outside the level or masked.</summary>
+    public float ReadLevelPixel(int z, int i, int j)
+    {
+        Span<float> value = stackalloc float[1];
+        ReadRegion(z, i, j, 1, 1, value);
+        return value[0];
+    }
+
+    public void Dispose()
+    {
+        _disposed = true;
+        foreach (var level in _levels) level.Dispose();
+    }
+
+    /// <summary>Native rows come from the plane bottom-up; the region is top-down.</summary>
+    private void ReadNative(int left, int top, int width, int height, Span<float> region)
+    {
+        int imageWidth = Geometry.Width, imageHeight = Geometry.Height;
+        int c0 = Math.Clamp(left, 0, imageWidth), c1 = (int)Math.Clamp((long)left + width, 0, imageWidth);
+        for (var j = 0; j < height; j++)
+        {
+            var row = region.Slice(j * width, width);
+            var r = (long)top + j;
+            if (r < 0 || r >= imageHeight || c0 >= c1)
+            {
+                row.Fill(float.NaN);
+                continue;
+            }
+            row[..(c0 - left)].Fill(float.NaN);
+            row[(c1 - left)..].Fill(float.NaN);
+            _native.ReadRow(imageHeight - 1 - (int)r, c0, row[(c0 - left)..(c1 - left)]);
+        }
+    }
+
+    private static ValueHistogram LoadHistogram(string path)
+    {
+        try
+        {
+            using var stream = new FileStream(path, FileMode.Open, FileAccess.Read, FileShare.Read | FileShare.Delete);
+            return ValueHistogram.Load(stream);
+        }
+        catch (Exception e) when (e is FileNotFoundException or DirectoryNotFoundException)
+        {
+            throw new InvalidDataException($"no complete pyramid: {path} is missing", e);
+        }
+    }
+
+    private static SafeFileHandle OpenLevel(string directory, PyramidGeometry geometry, int z)
+    {
+        var path = Path.Combine(directory, PyramidLayout.LevelFile(z));
+        SafeFileHandle handle;
+        try
+        {
+            handle = File.OpenHandle(path, FileMode.Open, FileAccess.Read, FileShare.Read | FileShare.Delete);
+        }
+        catch (Exception e) when (e is FileNotFoundException or DirectoryNotFoundException)
+        {
+            throw new InvalidDataException($"no complete pyramid: level file {path} is missing", e);
+        }
+        var expected = PyramidLayout.LevelBytes(geometry, z);
+        var length = RandomAccess.GetLength(handle);
+        if (length != expected)
+        {
+            handle.Dispose();
+            throw new InvalidDataException($"level file {path} holds {length} bytes; zoom {z} needs {expected}");
+        }
+        return handle;
+    }
+
+    private static void ReadExactly(SafeFileHandle file, Span<byte> destination, long offset)
+    {
+        while (!destination.IsEmpty)
+        {
+            var read = RandomAccess.Read(file, destination, offset);
+            if (read == 0) throw new InvalidDataException("level file ended early: the pyramid was truncated after it was built");
+            destination = destination[read..];
+            offset += read;
+        }
+    }
 }

@@ -1,11 +1,98 @@
+using System.Numerics;
+using Mosaic.Imaging.Display.Limits;
+using Mosaic.Imaging.Display.Palettes;
+using Mosaic.Imaging.Display.Stretches;
+
 namespace Mosaic.Imaging.Rendering;
 
-/// <summary>CONTRACT STUB: display settings compiled to a lookup table from value to 8-bit level.</summary>
+/// <summary>
+/// Display settings compiled for the tile loop: limits, stretch and palette folded into one table from the value's
+/// place u between the limits to the 8-bit level. The table is sized so neighbouring entries differ by at most one
+/// level, which keeps every pixel within 1 DN of the exact formula; a curve too steep for the largest table is
+/// served exactly from its level breakpoints instead. Immutable and thread-safe.
+/// </summary>
 public sealed class ToneMap
 {
-    public double Lo { get; init; }
-    public double Hi { get; init; }
+    /// <summary>
+    /// Smallest table. Measured: 4 Ki to 256 Ki entries apply equally fast (the gathers dominate), while the share
+    /// of pixels one level off the exact formula falls from ~3% (4 Ki) to ~0.2% (64 Ki); past 64 Ki compiling slows.
+    /// </summary>
+    public const int DefaultEntries = 1 << 16;
 
-    /// <summary>Levels for values; returns how many were masked (NaN), whose level is left 0.</summary>
-    public int Apply(ReadOnlySpan<float> values, Span<byte> levels) => throw new NotImplementedException();
+    /// <summary>Largest table: past 2^20 a float32 index would step by more than an eighth of an entry.</summary>
+    public const int MaximumEntries = 1 << 20;
+
+    private readonly LookupTable? _table;
+    private readonly LevelBreaks? _breaks;
+
+    private ToneMap(ValueRange limits, LookupTable? table, LevelBreaks? breaks)
+    {
+        Lo = limits.Lo;
+        Hi = limits.Hi;
+        _table = table;
+        _breaks = breaks;
+    }
+
+    /// <summary>Value shown at the lowest level (u = 0).</summary>
+    public double Lo { get; }
+
+    /// <summary>Value shown at the highest level (u = 1).</summary>
+    public double Hi { get; }
+
+    /// <summary>Entries in the lookup table; 0 where the curve is too steep for any table and levels come from breakpoints.</summary>
+    public int TableEntries => _table?.Entries ?? 0;
+
+    /// <summary>
+    /// Compiles a curve and palette over the limits. <paramref name="minimumEntries"/> (a power of two from 256 to
+    /// <see cref="MaximumEntries"/>) is where the table search starts; it grows until the 1 DN bound holds.
+    /// </summary>
+    public static ToneMap Create(ValueRange limits, IStretchCurve curve, IPalette palette, int minimumEntries = DefaultEntries)
+    {
+        ArgumentNullException.ThrowIfNull(curve);
+        ArgumentNullException.ThrowIfNull(palette);
+        if (!FieldLimits.IsUsable(limits.Lo, limits.Hi))
+            throw new ArgumentOutOfRangeException(nameof(limits), limits, "limits must be finite within float32 range with hi - lo not below float32 resolution");
+        if (minimumEntries < 256 || minimumEntries > MaximumEntries || !BitOperations.IsPow2(minimumEntries))
+            throw new ArgumentOutOfRangeException(nameof(minimumEntries), minimumEntries, $"minimumEntries must be a power of two from 256 to {MaximumEntries}");
+
+        var levelOf = new LevelFunction(curve, palette);
+        for (var entries = minimumEntries; ; )
+        {
+            var table = LookupTable.Build(limits, levelOf, entries);
+            var step = table.LargestStep();
+            if (step <= 1) return new ToneMap(limits, table, null);
+            if (entries == MaximumEntries) return new ToneMap(limits, null, LevelBreaks.Find(limits, levelOf, table));
+            // Jump straight to about the size the measured slope asks for rather than doubling blindly.
+            var wanted = (long)entries * step;
+            entries = (int)Math.Min(MaximumEntries, Math.Max(2L * entries, (long)BitOperations.RoundUpToPowerOf2((ulong)wanted)));
+        }
+    }
+
+    /// <summary>
+    /// Levels for values; returns how many were masked (NaN), whose level is 0. Values below Lo get the level of
+    /// u = 0, above Hi that of u = 1 (±infinity included). <paramref name="levels"/> must be at least as long as
+    /// <paramref name="values"/>. Allocates nothing.
+    /// </summary>
+    public int Apply(ReadOnlySpan<float> values, Span<byte> levels)
+    {
+        if (levels.Length < values.Length)
+            throw new ArgumentException($"levels holds {levels.Length} bytes but values has {values.Length}", nameof(levels));
+        return _table is { } table ? table.Apply(values, levels) : _breaks!.Apply(values, levels);
+    }
+
+    /// <summary>Apply through one chosen loop, for tests comparing the paths.</summary>
+    internal int Apply(ReadOnlySpan<float> values, Span<byte> levels, LookupPath path)
+    {
+        if (levels.Length < values.Length)
+            throw new ArgumentException($"levels holds {levels.Length} bytes but values has {values.Length}", nameof(levels));
+        return _table is { } table ? table.Apply(values, levels, path) : _breaks!.Apply(values, levels);
+    }
+
+    /// <summary>The level of one value, as <see cref="Apply"/> would give it.</summary>
+    public byte LevelOf(float value)
+    {
+        Span<byte> level = stackalloc byte[1];
+        Apply(new ReadOnlySpan<float>(in value), level);
+        return level[0];
+    }
 }

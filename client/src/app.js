@@ -1,0 +1,155 @@
+// Wires the controls together: the pickers choose what to show, the image view shows it, and the view state (and so
+// the URL) follows both.
+import { listFields, getField, tileUrlTemplate } from './api.js';
+import { ViewState } from './state.js';
+import { ImageView } from './image-view.js';
+import { FieldPicker } from './field-picker.js';
+import { BandPicker } from './band-picker.js';
+import { HduPicker } from './hdu-picker.js';
+import { PixelReadout } from './pixel-readout.js';
+import { BuildProgress } from './build-progress.js';
+import { FieldWatcher } from './field-watcher.js';
+import { MessageLine } from './message-line.js';
+
+const state = ViewState.fromUrl();
+const imageView = new ImageView(document.getElementById('image-view'));
+const fieldPicker = new FieldPicker(document.getElementById('field-picker'), document.getElementById('field-note'));
+const bandPicker = new BandPicker(document.getElementById('band-picker'));
+const hduPicker = new HduPicker(document.getElementById('hdu-picker'));
+const readout = new PixelReadout(document.getElementById('pixel-readout'));
+const progress = new BuildProgress(document.getElementById('build-progress'));
+const message = new MessageLine(document.getElementById('message'));
+const watcher = new FieldWatcher();
+
+let fields = [];
+let field = null;
+// The HDU on screen: {field, band, hdu} plus whether its tiles were ready when last seen.
+let shown = null;
+
+const isPreparing = (hdu) => hdu.pyramid?.state === 'queued' || hdu.pyramid?.state === 'building';
+
+function readableBand(candidate, name) {
+  return candidate.bands.find((band) => band.name === name && !band.error && band.hdus.length > 0) ?? null;
+}
+
+function pickBand(candidate, name) {
+  return readableBand(candidate, name)
+    ?? readableBand(candidate, candidate.defaultBand)
+    ?? candidate.bands.find((band) => !band.error && band.hdus.length > 0)
+    ?? null;
+}
+
+function pickHdu(band, index, fallback) {
+  return band.hdus.find((hdu) => hdu.index === index)
+    ?? band.hdus.find((hdu) => hdu.index === fallback)
+    ?? band.hdus[0];
+}
+
+function open(candidate, { band: bandName = null, hdu: hduIndex = null, view = null } = {}) {
+  const band = pickBand(candidate, bandName);
+  if (band === null) {
+    message.show(`Field “${candidate.id}” has no band that can be shown${candidate.error ? `: ${candidate.error}` : '.'}`);
+    return;
+  }
+  field = candidate;
+  const hdu = pickHdu(band, hduIndex, candidate.defaultHdu);
+  const source = { field: candidate.id, band: band.name, hdu: hdu.index };
+
+  fieldPicker.setFields(fields, candidate.id);
+  bandPicker.setBands(candidate.bands, band.name);
+  hduPicker.setHdus(band.hdus, hdu.index);
+  state.update(source);
+
+  shown = { ...source, ready: hdu.pyramid?.state === 'ready' };
+  imageView.show({ tileUrl: tileUrlTemplate(source), width: hdu.width, height: hdu.height, maxZoom: hdu.maxZoom }, view);
+  readout.setSource({ ...source, hduName: hdu.name, width: hdu.width, height: hdu.height });
+  progress.show(hdu.name, hdu.pyramid);
+  watchPreparation(band);
+}
+
+function watchPreparation(band) {
+  if (!band.hdus.some(isPreparing)) {
+    watcher.stop();
+    return;
+  }
+  watcher.watch(field.id, {
+    onField: onFieldPolled,
+    onError: (error) => message.show(`Cannot reach the server (${error.message}); trying again.`, 'connection'),
+    isDone: (polled) => !(polled.bands.find((b) => b.name === shown?.band)?.hdus.some(isPreparing) ?? false),
+  });
+}
+
+function onFieldPolled(polled) {
+  message.clear('connection');
+  if (shown === null || polled.id !== shown.field) return;
+  field = polled;
+  fields = fields.map((known) => (known.id === polled.id ? polled : known));
+  const band = polled.bands.find((b) => b.name === shown.band);
+  const hdu = band?.hdus.find((h) => h.index === shown.hdu);
+  if (!band || !hdu) return;
+  hduPicker.setHdus(band.hdus, hdu.index);
+  progress.show(hdu.name, hdu.pyramid);
+  const ready = hdu.pyramid?.state === 'ready';
+  if (ready && !shown.ready) imageView.refreshTiles();
+  shown.ready = ready;
+}
+
+async function switchField(id) {
+  watcher.stop();
+  try {
+    const fresh = await getField(id);
+    fields = fields.map((known) => (known.id === id ? fresh : known));
+    if (fresh.error) {
+      message.show(`Field “${id}” cannot be shown: ${fresh.error}`);
+      fieldPicker.setFields(fields, field?.id ?? null);
+      return;
+    }
+    message.clear();
+    open(fresh);
+  } catch (error) {
+    message.show(`Field “${id}” could not be loaded: ${error.message}`);
+  }
+}
+
+function wireEvents() {
+  fieldPicker.addEventListener('pick', (event) => switchField(event.detail));
+  // A pick answers whatever the message line said about an earlier choice.
+  bandPicker.addEventListener('pick', (event) => {
+    message.clear();
+    if (field) open(field, { band: event.detail, hdu: shown?.hdu ?? null });
+  });
+  hduPicker.addEventListener('pick', (event) => {
+    message.clear();
+    if (field) open(field, { band: shown?.band ?? null, hdu: event.detail });
+  });
+  imageView.addEventListener('viewchange', (event) => state.update(event.detail));
+  imageView.addEventListener('pointer', (event) => readout.pointAt(event.detail));
+}
+
+async function start() {
+  wireEvents();
+  try {
+    fields = await listFields();
+  } catch (error) {
+    message.show(`The list of fields could not be loaded: ${error.message}`);
+    return;
+  }
+  const wanted = state.current;
+  const readable = fields.filter((candidate) => !candidate.error);
+  if (readable.length === 0) {
+    fieldPicker.setFields(fields, null);
+    message.show(fields.length === 0 ? 'The data folder holds no FITS files.' : 'No field in the data folder can be read.');
+    return;
+  }
+  let chosen = readable.find((candidate) => candidate.id === wanted.field) ?? null;
+  if (wanted.field !== null && chosen === null) {
+    message.show(`Field “${wanted.field}” is not available; showing “${readable[0].id}” instead.`);
+  }
+  const view = chosen !== null && wanted.x !== null && wanted.y !== null && wanted.z !== null
+    ? { x: wanted.x, y: wanted.y, z: wanted.z }
+    : null;
+  chosen ??= readable[0];
+  open(chosen, { band: wanted.band, hdu: wanted.hdu, view });
+}
+
+start();

@@ -1,0 +1,187 @@
+// The pannable, zoomable image: a Leaflet map in FITS pixel coordinates showing one HDU's tiles over a layer in the
+// masked colour (see mask-layer.js), so masked (transparent) pixels show that colour and nothing else does.
+import { Map as LeafletMap, SVG, Rectangle, TileLayer, Control, Point } from 'leaflet';
+import { createPixelCrs, imageBounds } from './pixel-crs.js';
+import { MaskLayer } from './mask-layer.js';
+import { FitControl } from './fit-control.js';
+
+// Beyond native resolution each image pixel becomes an 8 x 8 block at most.
+const ZOOM_PAST_NATIVE = 3;
+// One zoom level below the whole-image tile, to see a tall chip whole in a short window.
+const MIN_ZOOM = -1;
+// Under the tile pane (200): the masked colour, and over it the image's outline, seen while tiles load.
+const MASK_PANE = 'maskPane';
+const MASK_PANE_Z = 150;
+const OUTLINE_PANE = 'outlinePane';
+const OUTLINE_PANE_Z = 160;
+
+function sameGeometry(a, b) {
+  return a !== null && b !== null && a.width === b.width && a.height === b.height && a.maxZoom === b.maxZoom;
+}
+
+/**
+ * Fires `viewchange` ({x, y, z}: the centre in FITS pixels and the zoom) when a pan or zoom ends, and `pointer`
+ * ({x, y} in FITS pixels, or null when the pointer leaves) whenever the image point under the pointer changes. When
+ * the view is worked from the keyboard, the point probed is the one under a crosshair at its middle.
+ */
+export class ImageView extends EventTarget {
+  #container;
+  #map = null;
+  #geometry = null;
+  #bounds = null;
+  #tiles = null;
+  #tileUrl = null;
+  #pointer = null;
+  // Keys move the map under a crosshair at the middle, and the readout follows that instead of the mouse.
+  #keyboardProbe = false;
+
+  constructor(container) {
+    super();
+    this.#container = container;
+    // On the container, which outlives each map made in it.
+    container.addEventListener('blur', () => {
+      if (this.#keyboardProbe) this.#setPointer(null);
+      this.#setKeyboardProbe(false);
+    });
+  }
+
+  /** The centre (FITS pixels) and zoom, or null before anything is shown. */
+  get view() {
+    if (this.#map === null) return null;
+    const centre = this.#map.getCenter();
+    return { x: centre.lng, y: centre.lat, z: this.#map.getZoom() };
+  }
+
+  /**
+   * Shows the tiles at `tileUrl` of an image of `width` x `height` pixels whose native zoom is `maxZoom`. With a
+   * `view` ({x, y, z}) it goes there; without one it keeps the current view when the geometry is unchanged (another
+   * band of the same chip) and shows the whole image otherwise.
+   */
+  show({ tileUrl, width, height, maxZoom }, view = null) {
+    const geometry = { width, height, maxZoom };
+    const keep = sameGeometry(this.#geometry, geometry);
+    if (!keep) this.#createMap(geometry);
+    if (this.#tiles === null) {
+      this.#tiles = this.#createTiles(tileUrl, geometry).addTo(this.#map);
+    } else if (this.#tileUrl !== tileUrl) {
+      this.#tiles.setUrl(tileUrl);
+    }
+    this.#tileUrl = tileUrl;
+    if (view !== null) {
+      this.#map.setView([view.y, view.x], view.z, { animate: false });
+    } else if (!keep) {
+      this.fitImage(false);
+    }
+  }
+
+  /** Requests every tile again: after the pyramid of the shown HDU became ready. */
+  refreshTiles() {
+    this.#tiles?.redraw();
+  }
+
+  fitImage(animate = true) {
+    if (this.#map === null) return;
+    this.#map.fitBounds(this.#bounds, { animate, padding: [16, 16] });
+  }
+
+  #createMap(geometry) {
+    if (this.#map !== null) {
+      this.#map.remove();
+      this.#tiles = null;
+      this.#pointer = null;
+      this.#setKeyboardProbe(false);
+    }
+    this.#geometry = geometry;
+    this.#bounds = imageBounds(geometry.width, geometry.height);
+    const map = new LeafletMap(this.#container, {
+      crs: createPixelCrs(geometry.height, geometry.maxZoom),
+      minZoom: MIN_ZOOM,
+      maxZoom: geometry.maxZoom + ZOOM_PAST_NATIVE,
+      zoomSnap: 0.25,
+      zoomDelta: 0.5,
+      wheelPxPerZoomLevel: 90,
+      keyboardPanDelta: 120,
+      // Loose bounds: the image can be dragged half off screen, never lost.
+      maxBounds: this.#bounds.pad(0.5),
+      maxBoundsViscosity: 0.8,
+      attributionControl: false,
+      zoomControl: false,
+      // Tiles show at once when loaded: a tile fading in would let the masked colour under it shine through.
+      fadeAnimation: false,
+    });
+    this.#map = map;
+    new Control.Zoom({ position: 'topright', zoomInTitle: 'Zoom in', zoomOutTitle: 'Zoom out' }).addTo(map);
+    new FitControl({ onFit: () => this.fitImage() }).addTo(map);
+
+    map.createPane(MASK_PANE).style.zIndex = String(MASK_PANE_Z);
+    map.createPane(OUTLINE_PANE).style.zIndex = String(OUTLINE_PANE_Z);
+    new Rectangle(this.#bounds, {
+      pane: OUTLINE_PANE,
+      renderer: new SVG({ pane: OUTLINE_PANE, padding: 0.5 }),
+      className: 'image-outline',
+      weight: 1,
+      fill: false,
+      interactive: false,
+    }).addTo(map);
+
+    map.on('zoomend', () => this.#markPastNative());
+    map.on('moveend', () => this.dispatchEvent(new CustomEvent('viewchange', { detail: this.view })));
+    map.on('mousemove', (event) => {
+      this.#setKeyboardProbe(false);
+      this.#setPointer(event.containerPoint);
+    });
+    map.on('mouseout', () => {
+      if (!this.#keyboardProbe) this.#setPointer(null);
+    });
+    map.on('keydown', () => {
+      this.#setKeyboardProbe(true);
+      this.#setPointer(map.getSize().divideBy(2));
+    });
+    map.on('resize', () => {
+      if (this.#keyboardProbe) this.#setPointer(map.getSize().divideBy(2));
+    });
+    // The map moving under a still pointer (wheel, keys, buttons) changes the pixel under it too.
+    map.on('move', () => {
+      if (this.#pointer !== null) this.#emitPointer();
+    });
+  }
+
+  #createTiles(tileUrl, geometry) {
+    const grid = {
+      tileSize: 256,
+      noWrap: true,
+      bounds: this.#bounds,
+      minZoom: MIN_ZOOM,
+      maxZoom: geometry.maxZoom + ZOOM_PAST_NATIVE,
+      minNativeZoom: 0,
+      maxNativeZoom: geometry.maxZoom,
+      keepBuffer: 2,
+    };
+    const layer = new TileLayer(tileUrl, { ...grid, className: 'image-tiles' });
+    new MaskLayer(layer, { ...grid, geometry, pane: MASK_PANE, className: 'mask-tiles' }).addTo(this.#map);
+    return layer;
+  }
+
+  #markPastNative() {
+    this.#container.classList.toggle('past-native', this.#map.getZoom() > this.#geometry.maxZoom);
+  }
+
+  #setKeyboardProbe(on) {
+    this.#keyboardProbe = on;
+    this.#container.classList.toggle('keyboard-probe', on);
+  }
+
+  #setPointer(containerPoint) {
+    this.#pointer = containerPoint === null ? null : new Point(containerPoint.x, containerPoint.y);
+    this.#emitPointer();
+  }
+
+  #emitPointer() {
+    let detail = null;
+    if (this.#pointer !== null) {
+      const at = this.#map.containerPointToLatLng(this.#pointer);
+      detail = { x: at.lng, y: at.lat };
+    }
+    this.dispatchEvent(new CustomEvent('pointer', { detail }));
+  }
+}

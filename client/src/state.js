@@ -1,0 +1,103 @@
+// The view state lives here and nowhere else: controls read it and ask it to change, and every change is mirrored
+// into the page URL so that reloading or sharing the link opens the same view.
+
+const EMPTY = Object.freeze({ field: null, band: null, hdu: null, x: null, y: null, z: null });
+
+// A hundredth of a pixel and of a zoom level is finer than anyone can see, and keeps links short.
+const DECIMALS = 2;
+
+function parseText(value) {
+  const text = value?.trim();
+  return text ? text : null;
+}
+
+function parseIndex(value) {
+  const text = value?.trim();
+  return text && /^\d{1,6}$/.test(text) ? Number(text) : null;
+}
+
+function parseNumber(value) {
+  const text = value?.trim();
+  if (!text) return null;
+  const number = Number(text);
+  return Number.isFinite(number) ? number : null;
+}
+
+function round(value) {
+  const factor = 10 ** DECIMALS;
+  return Math.round(value * factor) / factor;
+}
+
+function normalise(state) {
+  return Object.freeze({
+    field: typeof state.field === 'string' && state.field !== '' ? state.field : null,
+    band: typeof state.band === 'string' && state.band !== '' ? state.band : null,
+    hdu: Number.isInteger(state.hdu) && state.hdu >= 0 ? state.hdu : null,
+    x: Number.isFinite(state.x) ? round(state.x) : null,
+    y: Number.isFinite(state.y) ? round(state.y) : null,
+    z: Number.isFinite(state.z) ? round(state.z) : null,
+  });
+}
+
+/** Reads a view from a URL query such as `?field=demo&band=red&hdu=3&x=1024.5&y=2048.5&z=3`. */
+export function parseViewQuery(search) {
+  const query = new URLSearchParams(search);
+  return normalise({
+    field: parseText(query.get('field')),
+    band: parseText(query.get('band')),
+    hdu: parseIndex(query.get('hdu')),
+    x: parseNumber(query.get('x')),
+    y: parseNumber(query.get('y')),
+    z: parseNumber(query.get('z')),
+  });
+}
+
+/** Writes a view as a URL query, in a fixed order so equal views give equal links. */
+export function formatViewQuery(state) {
+  const query = new URLSearchParams();
+  for (const key of Object.keys(EMPTY)) {
+    if (state[key] !== null) query.set(key, String(state[key]));
+  }
+  const text = query.toString();
+  return text ? `?${text}` : '';
+}
+
+/**
+ * The field, band, HDU, centre (FITS pixels, 1-based) and zoom being viewed. Fires `change` with the new state in
+ * `detail` after every update that changed something.
+ */
+export class ViewState extends EventTarget {
+  #state;
+  #history;
+  #location;
+
+  constructor(initial = EMPTY, { history = window.history, location = window.location } = {}) {
+    super();
+    this.#state = normalise({ ...EMPTY, ...initial });
+    this.#history = history;
+    this.#location = location;
+  }
+
+  static fromUrl(location = window.location, history = window.history) {
+    return new ViewState(parseViewQuery(location.search), { history, location });
+  }
+
+  get current() {
+    return this.#state;
+  }
+
+  /** Merges `changes` into the state; null clears a key. */
+  update(changes) {
+    const next = normalise({ ...this.#state, ...changes });
+    if (Object.keys(EMPTY).every((key) => next[key] === this.#state[key])) return;
+    this.#state = next;
+    this.#mirrorToUrl();
+    this.dispatchEvent(new CustomEvent('change', { detail: next }));
+  }
+
+  #mirrorToUrl() {
+    const url = `${this.#location.pathname}${formatViewQuery(this.#state)}${this.#location.hash}`;
+    // replaceState: a pan is not a page the Back button should step through.
+    this.#history.replaceState(this.#history.state, '', url);
+  }
+}

@@ -1,0 +1,3 @@
+namespace Mosaic.Server.Api;
+
+public sealed record PyramidStatusDto(string State, double Progress, string? Error);

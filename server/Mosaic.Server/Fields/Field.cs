@@ -1,0 +1,49 @@
+namespace Mosaic.Server.Fields;
+
+/// <summary>What a user picks: a FITS file, or a folder whose files are the bands of one field.</summary>
+public sealed class Field
+{
+    private readonly List<FieldBand> _bands = [];
+
+    internal Field(string id, string path, bool isFolder)
+    {
+        Id = id;
+        Path = path;
+        IsFolder = isFolder;
+    }
+
+    public string Id { get; }
+
+    public string Path { get; }
+
+    public bool IsFolder { get; }
+
+    public IReadOnlyList<FieldBand> Bands => _bands;
+
+    /// <summary>Why nothing of this field can be shown, or null where at least one band can.</summary>
+    public string? Error => _bands.Count == 0
+        ? (IsFolder ? "the folder holds no FITS file" : "the file could not be read")
+        : _bands.All(b => b.Error is not null) ? string.Join("; ", _bands.Select(b => b.Error)) : null;
+
+    /// <summary>The first band that can be shown.</summary>
+    public FieldBand? DefaultBand => _bands.FirstOrDefault(b => b.Error is null);
+
+    internal void Add(FieldBand band) => _bands.Add(band);
+
+    /// <summary>By name (case-insensitive); the default band when null or empty.</summary>
+    public FieldBand ResolveBand(string? band)
+    {
+        FieldBand? found = string.IsNullOrWhiteSpace(band)
+            ? DefaultBand
+            : _bands.FirstOrDefault(b => string.Equals(b.Name, band.Trim(), StringComparison.OrdinalIgnoreCase));
+        if (found is null)
+        {
+            if (!string.IsNullOrWhiteSpace(band))
+                throw Errors.MosaicRequestException.NotFound("Band", $"Field '{Id}' has no band '{band}'; it has: {string.Join(", ", _bands.Select(b => b.Name))}.", "band");
+            throw new Errors.MosaicRequestException(StatusCodes.Status422UnprocessableEntity, "Unreadable field", $"Field '{Id}' cannot be shown: {Error}");
+        }
+        if (found.Error is not null)
+            throw new Errors.MosaicRequestException(StatusCodes.Status422UnprocessableEntity, "Unreadable band", $"Band '{found.Name}' of field '{Id}' cannot be shown: {found.Error}", "band");
+        return found;
+    }
+}

@@ -1,0 +1,20 @@
+using Mosaic.Server.Hosting;
+
+if (args is ["generate-demo", .. var demoArgs])
+    return DemoField.RunCommand(demoArgs);
+
+var builder = WebApplication.CreateBuilder(args);
+var options = MosaicOptions.FromConfiguration(builder.Configuration);
+if (string.IsNullOrEmpty(builder.Configuration["urls"]))
+    builder.WebHost.UseUrls("http://127.0.0.1:5000"); // loopback unless told otherwise
+builder.Services.AddMosaic(options);
+
+if (options.ServesDemo) DemoField.EnsureGenerated(options);
+
+var app = builder.Build();
+app.UseMosaic();
+app.Run();
+return 0;
+
+/// <summary>Visible to the test host.</summary>
+public partial class Program;

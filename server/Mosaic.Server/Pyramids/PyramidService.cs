@@ -1,0 +1,201 @@
+using System.Collections.Concurrent;
+using System.Diagnostics;
+using Mosaic.Fits;
+using Mosaic.Imaging.Pyramids;
+using Mosaic.Imaging.Statistics;
+using Mosaic.Server.Errors;
+using Mosaic.Server.Fields;
+using Mosaic.Server.Hosting;
+
+namespace Mosaic.Server.Pyramids;
+
+/// <summary>
+/// Builds the pyramid of every image HDU once, in the background, one at a time, into the cache folder, where a
+/// later start finds it. The HDUs someone is looking at go to the front of the queue.
+/// </summary>
+public sealed class PyramidService : BackgroundService
+{
+    private static readonly TimeSpan ProgressLogInterval = TimeSpan.FromSeconds(3);
+    private readonly ConcurrentDictionary<string, PyramidEntry> _entries = new(StringComparer.Ordinal);
+    private readonly ConcurrentDictionary<string, BandSummary> _bandSummaries = new(StringComparer.Ordinal);
+    private readonly LinkedList<PyramidEntry> _queue = new();
+    private readonly Lock _queueGate = new();
+    private readonly SemaphoreSlim _work = new(0);
+    private readonly MosaicOptions _options;
+    private readonly ILogger<PyramidService> _logger;
+
+    public PyramidService(MosaicOptions options, FieldCatalog catalog, ILogger<PyramidService> logger)
+    {
+        _options = options;
+        _logger = logger;
+        catalog.Scanned += fields => Track(fields.SelectMany(f => f.Bands).SelectMany(b => b.Hdus));
+    }
+
+    private string PyramidRoot => Path.Combine(_options.CacheDirectory, "pyramids");
+
+    public PyramidStatus GetStatus(FieldHdu hdu) => Entry(hdu).Status;
+
+    /// <summary>The built pyramid, or PyramidNotReadyException (after moving the HDU to the front of the queue).</summary>
+    public Pyramid GetReady(FieldHdu hdu)
+    {
+        var entry = Entry(hdu);
+        return entry.State switch
+        {
+            PyramidState.Ready => entry.Pyramid!,
+            PyramidState.Failed => throw new MosaicRequestException(StatusCodes.Status422UnprocessableEntity, "Pyramid failed",
+                $"The pyramid of {hdu.Description} could not be built: {entry.Error}"),
+            _ => throw NotReady(hdu, entry),
+        };
+    }
+
+    /// <summary>Field-wide statistics of a band: every HDU of the band together, so chips share one set of limits.</summary>
+    public BandSummary GetBandSummary(FieldBand band)
+    {
+        if (_bandSummaries.TryGetValue(band.Version, out var summary)) return summary;
+        var waiting = band.Hdus.Select(Entry).Where(e => e.State is PyramidState.Queued or PyramidState.Building).ToList();
+        if (waiting.Count > 0)
+        {
+            foreach (var entry in Enumerable.Reverse(waiting)) Prioritise(entry);
+            var progress = band.Hdus.Average(h => Entry(h).Status.Progress);
+            throw new PyramidNotReadyException(
+                $"Band '{band.Name}' of field '{band.Field.Id}' is being prepared: {band.Hdus.Count - waiting.Count} of {band.Hdus.Count} HDUs ready ({progress:P0}); try again shortly.",
+                progress);
+        }
+        var histogram = new ValueHistogram();
+        foreach (var hdu in band.Hdus) histogram.Merge(GetReady(hdu).Histogram);
+        summary = new BandSummary(histogram, BandStatistics.From(histogram));
+        return _bandSummaries.GetOrAdd(band.Version, summary);
+    }
+
+    private PyramidNotReadyException NotReady(FieldHdu hdu, PyramidEntry entry)
+    {
+        Prioritise(entry);
+        var status = entry.State == PyramidState.Building ? $"being built ({entry.Progress:P0})" : "queued";
+        return new PyramidNotReadyException($"The pyramid of {hdu.Description} is {status}; try again shortly.", entry.Progress);
+    }
+
+    private PyramidEntry Entry(FieldHdu hdu)
+    {
+        if (_entries.TryGetValue(hdu.PyramidKey, out var entry)) return entry;
+        Track([hdu]);
+        return _entries[hdu.PyramidKey];
+    }
+
+    private void Track(IEnumerable<FieldHdu> hdus)
+    {
+        foreach (var hdu in hdus)
+        {
+            var created = false;
+            var entry = _entries.GetOrAdd(hdu.PyramidKey, _ => { created = true; return new PyramidEntry(hdu); });
+            if (!created) continue;
+            if (TryOpenExisting(entry)) continue;
+            lock (_queueGate) _queue.AddLast(entry);
+            _work.Release();
+        }
+    }
+
+    private void Prioritise(PyramidEntry entry)
+    {
+        lock (_queueGate)
+        {
+            var node = _queue.Find(entry);
+            if (node is null || node == _queue.First) return;
+            _queue.Remove(node);
+            _queue.AddFirst(node);
+        }
+    }
+
+    private string DirectoryOf(FieldHdu hdu) => Path.Combine(PyramidRoot, hdu.PyramidKey);
+
+    private bool TryOpenExisting(PyramidEntry entry)
+    {
+        var directory = DirectoryOf(entry.Hdu);
+        if (!Directory.Exists(directory)) return false;
+        try
+        {
+            entry.Pyramid = Pyramid.Open(directory, entry.Hdu.Plane);
+            entry.State = PyramidState.Ready;
+            return true;
+        }
+        catch (InvalidDataException e)
+        {
+            _logger.LogWarning("Rebuilding the pyramid of {Hdu}: the cached one is unusable ({Reason})", entry.Hdu.Description, e.Message);
+            Directory.Delete(directory, recursive: true);
+            return false;
+        }
+    }
+
+    protected override async Task ExecuteAsync(CancellationToken stoppingToken)
+    {
+        Directory.CreateDirectory(PyramidRoot);
+        // Builds are CPU-bound and long: keep them off the request thread pool.
+        await Task.Factory.StartNew(() => BuildLoop(stoppingToken), stoppingToken, TaskCreationOptions.LongRunning, TaskScheduler.Default).Unwrap();
+    }
+
+    private async Task BuildLoop(CancellationToken stoppingToken)
+    {
+        while (!stoppingToken.IsCancellationRequested)
+        {
+            try
+            {
+                await _work.WaitAsync(stoppingToken);
+            }
+            catch (OperationCanceledException)
+            {
+                return;
+            }
+            PyramidEntry? entry;
+            lock (_queueGate)
+            {
+                entry = _queue.First?.Value;
+                if (entry is not null) _queue.RemoveFirst();
+            }
+            if (entry is not null) Build(entry, stoppingToken);
+        }
+    }
+
+    private void Build(PyramidEntry entry, CancellationToken stoppingToken)
+    {
+        var hdu = entry.Hdu;
+        var directory = DirectoryOf(hdu);
+        entry.State = PyramidState.Building;
+        var megapixels = (double)hdu.Plane.Width * hdu.Plane.Height / 1e6;
+        _logger.LogInformation("Building the pyramid of {Hdu} ({Width} x {Height}, {Megapixels:F1} Mpx)", hdu.Description, hdu.Plane.Width, hdu.Plane.Height, megapixels);
+        var clock = Stopwatch.StartNew();
+        var lastLogged = TimeSpan.Zero;
+        var progress = new SynchronousProgress(p =>
+        {
+            entry.Progress = p;
+            // A line every few seconds for the long builds; the short ones only say when they are done.
+            if (clock.Elapsed - lastLogged >= ProgressLogInterval && p < 1)
+            {
+                lastLogged = clock.Elapsed;
+                _logger.LogInformation("Pyramid of {Hdu}: {Progress:P0}", hdu.Description, p);
+            }
+        });
+        try
+        {
+            if (Directory.Exists(directory)) Directory.Delete(directory, recursive: true);
+            PyramidBuilder.Build(hdu.Plane, directory, progress, stoppingToken);
+            entry.Pyramid = Pyramid.Open(directory, hdu.Plane);
+            entry.State = PyramidState.Ready;
+            _logger.LogInformation("Pyramid of {Hdu} ready in {Seconds:F2} s ({Rate:F0} Mpx/s)", hdu.Description, clock.Elapsed.TotalSeconds, megapixels / clock.Elapsed.TotalSeconds);
+        }
+        catch (OperationCanceledException) when (stoppingToken.IsCancellationRequested)
+        {
+            entry.State = PyramidState.Queued;
+        }
+        catch (Exception e) when (e is FitsFormatException or IOException or InvalidDataException or UnauthorizedAccessException)
+        {
+            entry.Error = e.Message;
+            entry.State = PyramidState.Failed;
+            _logger.LogError("The pyramid of {Hdu} failed: {Error}", hdu.Description, e.Message);
+        }
+    }
+
+    /// <summary>Progress&lt;T&gt; posts to the thread pool; the builder's reports are cheap enough to take inline.</summary>
+    private sealed class SynchronousProgress(Action<double> report) : IProgress<double>
+    {
+        public void Report(double value) => report(value);
+    }
+}

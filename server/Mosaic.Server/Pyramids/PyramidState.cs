@@ -1,0 +1,9 @@
+namespace Mosaic.Server.Pyramids;
+
+public enum PyramidState
+{
+    Queued,
+    Building,
+    Ready,
+    Failed,
+}

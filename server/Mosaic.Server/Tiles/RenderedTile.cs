@@ -1,0 +1,3 @@
+namespace Mosaic.Server.Tiles;
+
+public sealed record RenderedTile(byte[] Png, string ETag, bool CacheHit);

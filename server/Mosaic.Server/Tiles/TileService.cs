@@ -1,0 +1,48 @@
+using System.Collections.Concurrent;
+using Mosaic.Imaging.Display;
+using Mosaic.Imaging.Rendering;
+using Mosaic.Server.Errors;
+using Mosaic.Server.Fields;
+using Mosaic.Server.Pyramids;
+using Mosaic.TileCache;
+
+namespace Mosaic.Server.Tiles;
+
+/// <summary>Turns a tile request into PNG bytes: pyramid, field-wide tone map, encoder, with the cache in front.</summary>
+public sealed class TileService(PyramidService pyramids, TileCacheService cache)
+{
+    private const int MaxCompiledDisplays = 512;
+    private readonly ConcurrentDictionary<string, ToneMap> _toneMaps = new(StringComparer.Ordinal);
+
+    public async ValueTask<RenderedTile> GetTileAsync(FieldHdu hdu, int z, int x, int y, DisplaySettings display)
+    {
+        var geometry = hdu.Geometry;
+        if (z < 0 || z > geometry.MaxZoom)
+            throw MosaicRequestException.NotFound("Tile", $"Zoom {z} is outside 0 to {geometry.MaxZoom} for {hdu.Description}.", "z");
+        if (!geometry.Contains(z, x, y))
+            throw MosaicRequestException.NotFound("Tile", $"Tile {x},{y} is outside the {geometry.TilesX(z)} x {geometry.TilesY(z)} tiles of zoom {z} for {hdu.Description}.");
+
+        var pyramid = pyramids.GetReady(hdu);
+        var toneMap = ToneMapFor(hdu.Band, display);
+        var key = $"{hdu.PyramidKey}/{display.CanonicalKey}/{z}/{x}/{y}";
+        var (bytes, hit) = await cache.GetOrCreateAsync(key, () => TileRenderer.RenderPng(pyramid, z, x, y, toneMap));
+        return new RenderedTile(bytes, ETagOf(key), hit);
+    }
+
+    private ToneMap ToneMapFor(FieldBand band, DisplaySettings display)
+    {
+        var key = band.Version + "/" + display.CanonicalKey;
+        if (_toneMaps.TryGetValue(key, out var toneMap)) return toneMap;
+        var summary = pyramids.GetBandSummary(band);
+        toneMap = display.Compile(summary.Statistics, summary.Histogram);
+        if (_toneMaps.Count >= MaxCompiledDisplays) _toneMaps.Clear();
+        return _toneMaps.GetOrAdd(key, toneMap);
+    }
+
+    private static string ETagOf(string key)
+    {
+        Span<byte> hash = stackalloc byte[32];
+        System.Security.Cryptography.SHA256.HashData(System.Text.Encoding.UTF8.GetBytes(key), hash);
+        return "\"" + Convert.ToHexStringLower(hash[..12]) + "\"";
+    }
+}

@@ -1,0 +1,110 @@
+using System.Text.Json;
+using Microsoft.Playwright;
+using Mosaic.Browser.Tests.Viewer;
+
+namespace Mosaic.Browser.Tests.Hosting;
+
+/// <summary>
+/// A data folder with the small synthetic demo field and one unreadable FITS file, the real server serving it, and
+/// Debian's Chromium driven by Playwright.
+/// </summary>
+public sealed class MosaicSite : IAsyncLifetime
+{
+    public const string DemoFieldId = "demo";
+    public const string BrokenFieldFile = "broken.fits";
+    private const string Chromium = "/usr/bin/chromium";
+
+    private readonly string _root = Path.Combine(Path.GetTempPath(), $"mosaic-browser-{Guid.NewGuid():N}");
+    private ServerProcess? _server;
+    private IPlaywright? _playwright;
+    private IBrowser? _browser;
+    private FieldInfo? _demo;
+
+    public string DataDirectory => Path.Combine(_root, "data");
+
+    public Uri BaseAddress => Server.BaseAddress;
+
+    public ServerProcess Server => _server ?? throw new InvalidOperationException("the site is not started");
+
+    public FieldInfo Demo => _demo ?? throw new InvalidOperationException("the site is not started");
+
+    public string BandFile(string band) => Path.Combine(DataDirectory, DemoFieldId, Demo.Band(band).File);
+
+    public HttpClient CreateHttpClient() => new() { BaseAddress = BaseAddress, Timeout = TimeSpan.FromSeconds(30) };
+
+    public async Task InitializeAsync()
+    {
+        if (!File.Exists(Chromium))
+            throw new InvalidOperationException($"{Chromium} is missing: apt-get install chromium");
+        Directory.CreateDirectory(DataDirectory);
+        await ServerProcess.GenerateDemoAsync(Path.Combine(DataDirectory, DemoFieldId), "small");
+        // A file that claims to be FITS but is not: the field list must show it, with why it cannot be read.
+        await File.WriteAllTextAsync(Path.Combine(DataDirectory, BrokenFieldFile), "This is not a FITS file: it has no SIMPLE card.\n");
+
+        _server = await ServerProcess.StartAsync(DataDirectory, Path.Combine(_root, "cache"));
+        _demo = await WaitForPyramidsAsync(TimeSpan.FromMinutes(3));
+
+        _playwright = await Playwright.CreateAsync();
+        _browser = await _playwright.Chromium.LaunchAsync(new BrowserTypeLaunchOptions
+        {
+            ExecutablePath = Chromium,
+            Headless = true,
+            Args = ["--no-sandbox", "--disable-gpu", "--disable-quic", "--no-first-run", "--disable-background-networking",
+                "--disable-component-update", "--disable-sync"],
+        });
+    }
+
+    /// <summary>A fresh browser context (no shared history or cache) at 1280 x 800.</summary>
+    public async Task<ViewerPage> OpenViewerAsync(string query = "")
+    {
+        var browser = _browser ?? throw new InvalidOperationException("the site is not started");
+        var context = await browser.NewContextAsync(new BrowserNewContextOptions
+        {
+            BaseURL = BaseAddress.ToString(),
+            ViewportSize = new ViewportSize { Width = 1280, Height = 800 },
+        });
+        var page = await ViewerPage.OpenAsync(context, query);
+        return page;
+    }
+
+    public async Task<JsonElement> GetJsonAsync(string path)
+    {
+        using var http = CreateHttpClient();
+        using var response = await http.GetAsync(path);
+        var body = await response.Content.ReadAsStringAsync();
+        if (!response.IsSuccessStatusCode)
+            throw new InvalidOperationException($"GET {path} answered {(int)response.StatusCode}: {body}");
+        return JsonDocument.Parse(body).RootElement.Clone();
+    }
+
+    public async Task DisposeAsync()
+    {
+        if (_browser is not null) await _browser.DisposeAsync();
+        _playwright?.Dispose();
+        if (_server is not null) await _server.DisposeAsync();
+        try
+        {
+            Directory.Delete(_root, recursive: true);
+        }
+        catch (IOException)
+        {
+            // Left in the temp folder; not worth failing the run for.
+        }
+    }
+
+    private async Task<FieldInfo> WaitForPyramidsAsync(TimeSpan limit)
+    {
+        var deadline = DateTime.UtcNow + limit;
+        while (true)
+        {
+            var field = FieldInfo.Parse(await GetJsonAsync($"api/fields/{DemoFieldId}"));
+            var states = field.Bands.SelectMany(b => b.Hdus.Select(h => (Band: b.Name, Hdu: h.Name, State: h.PyramidState))).ToList();
+            if (states.Where(s => s.State == "failed").Select(s => $"{s.Band}/{s.Hdu}").FirstOrDefault() is { } failed)
+                throw new InvalidOperationException($"the pyramid of {failed} failed:\n{Server.RecentOutput}");
+            if (states.All(s => s.State == "ready")) return field;
+            if (DateTime.UtcNow > deadline)
+                throw new TimeoutException($"pyramids not ready after {limit.TotalSeconds} s:\n{Server.RecentOutput}");
+            await Task.Delay(250);
+        }
+    }
+}
