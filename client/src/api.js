@@ -1,5 +1,6 @@
 // The server's HTTP API. Paths are relative to the page so the app also works behind a proxy under a sub-path.
 import { ApiError } from './api-error.js';
+import { displayParameters } from './display-query.js';
 
 async function getJson(path, signal) {
   const response = await fetch(path, { signal, headers: { Accept: 'application/json' } });
@@ -23,8 +24,47 @@ export function probePixel({ field, band, hdu }, x, y, signal) {
   return getJson(`api/fields/${encodeURIComponent(field)}/probe?${query}`, signal);
 }
 
-/** A Leaflet URL template for the tiles of one HDU. */
-export function tileUrlTemplate({ field, band, hdu }) {
+/**
+ * A Leaflet URL template for the tiles of one HDU with the given display settings. Masked pixels stay transparent
+ * in tiles: the page paints its own masked colour under them, so changing that colour fetches nothing.
+ */
+export function tileUrlTemplate({ field, band, hdu }, display = null) {
   const query = new URLSearchParams({ band, hdu: String(hdu) });
+  if (display !== null) {
+    for (const [name, value] of displayParameters(display, { masked: 'transparent' })) query.set(name, value);
+  }
   return `tiles/${encodeURIComponent(field)}/{z}/{x}/{y}.png?${query}`;
+}
+
+function fieldPath(field, endpoint, query) {
+  return `api/fields/${encodeURIComponent(field)}/${endpoint}?${query}`;
+}
+
+/** The display resolved for a band: limits, stretch and palette parameters as numbers, and the colour bar. */
+export function getDisplay({ field, band }, display, signal) {
+  const query = new URLSearchParams({ band });
+  for (const [name, value] of displayParameters(display, { masked: null })) query.set(name, value);
+  return getJson(fieldPath(field, 'display', query), signal);
+}
+
+/** Counts of the band's finite pixels, field-wide, in `bins` equal bins over [lo, hi]. */
+export function getHistogram({ field, band }, { lo, hi, bins }, signal) {
+  const query = new URLSearchParams({ band, bins: String(bins), lo: String(lo), hi: String(hi) });
+  return getJson(fieldPath(field, 'histogram', query), signal);
+}
+
+/** The band's field-wide statistics. */
+export function getBandStats({ field, band }, signal) {
+  return getJson(fieldPath(field, 'stats', new URLSearchParams({ band })), signal);
+}
+
+/** Statistics of the pixels in box [x0, x1] x [y0, y1] (FITS, 1-based, inclusive) of one HDU. */
+export function getBoxStats({ field, band, hdu }, { x0, y0, x1, y1 }, signal) {
+  const query = new URLSearchParams({ band, hdu: String(hdu), x0: String(x0), y0: String(y0), x1: String(x1), y1: String(y1) });
+  return getJson(fieldPath(field, 'stats', query), signal);
+}
+
+/** Every palette the server draws with, each with its 256 colours. */
+export function listPalettes(signal) {
+  return getJson('api/palettes', signal);
 }

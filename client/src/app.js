@@ -1,6 +1,6 @@
-// Wires the controls together: the pickers choose what to show, the image view shows it, and the view state (and so
-// the URL) follows both.
-import { listFields, getField, tileUrlTemplate } from './api.js';
+// Wires the controls together: the pickers choose what to show, the display panel how to draw it, the image view
+// shows it, and the view state (and so the URL) follows all three.
+import { listFields, getField, tileUrlTemplate, listPalettes } from './api.js';
 import { ViewState } from './state.js';
 import { ImageView } from './image-view.js';
 import { FieldPicker } from './field-picker.js';
@@ -10,6 +10,9 @@ import { PixelReadout } from './pixel-readout.js';
 import { BuildProgress } from './build-progress.js';
 import { FieldWatcher } from './field-watcher.js';
 import { MessageLine } from './message-line.js';
+import { DisplayPanel } from './display-panel.js';
+import { DisplaySync } from './display-sync.js';
+import { sameDisplay, droppedParameters } from './display-query.js';
 
 const state = ViewState.fromUrl();
 const imageView = new ImageView(document.getElementById('image-view'));
@@ -20,6 +23,10 @@ const readout = new PixelReadout(document.getElementById('pixel-readout'));
 const progress = new BuildProgress(document.getElementById('build-progress'));
 const message = new MessageLine(document.getElementById('message'));
 const watcher = new FieldWatcher();
+// The page's own masked colour (app.css), used while the URL names none.
+const defaultMask = getComputedStyle(document.documentElement).getPropertyValue('--mask-colour').trim().slice(1).toLowerCase();
+const panel = new DisplayPanel(document.getElementById('display-panel'), { defaultMask });
+const sync = new DisplaySync(panel);
 
 let fields = [];
 let field = null;
@@ -61,10 +68,59 @@ function open(candidate, { band: bandName = null, hdu: hduIndex = null, view = n
   state.update(source);
 
   shown = { ...source, ready: hdu.pyramid?.state === 'ready' };
-  imageView.show({ tileUrl: tileUrlTemplate(source), width: hdu.width, height: hdu.height, maxZoom: hdu.maxZoom }, view);
+  const display = state.current.display;
+  imageView.show({ tileUrl: tileUrlTemplate(source, display), width: hdu.width, height: hdu.height, maxZoom: hdu.maxZoom }, view);
+  panel.limits.fitEnabled = true;
+  sync.update(source, display);
   readout.setSource({ ...source, hduName: hdu.name, width: hdu.width, height: hdu.height });
   progress.show(hdu.name, hdu.pyramid);
   watchPreparation(band);
+}
+
+function paintMask(masked) {
+  const root = document.documentElement.style;
+  if (masked === null) root.removeProperty('--mask-colour');
+  else root.setProperty('--mask-colour', `#${masked}`);
+}
+
+// New display settings: the URL, the tiles (only if what they show changed) and the panel follow.
+function applyDisplay(next) {
+  const before = state.current.display;
+  state.update({ display: next });
+  paintMask(next.masked);
+  if (shown === null) {
+    panel.show(next, null);
+    return;
+  }
+  const source = { field: shown.field, band: shown.band, hdu: shown.hdu };
+  if (sameDisplay({ ...before, masked: null }, { ...next, masked: null })) {
+    panel.show(next, panel.resolved);
+    return;
+  }
+  imageView.restyle(tileUrlTemplate(source, next));
+  sync.update(source, next);
+}
+
+async function fitLimitsToView() {
+  try {
+    const next = await sync.fitToBox(imageView.visibleBox);
+    if (next === null) {
+      message.show('No part of the image is on screen to take the limits from.', 'display');
+      return;
+    }
+    message.clear('display');
+    applyDisplay(next);
+  } catch (error) {
+    message.show(`The limits could not be taken from the screen: ${error.message}`, 'display');
+  }
+}
+
+async function loadPalettes() {
+  try {
+    panel.palette.setPalettes(await listPalettes());
+  } catch (error) {
+    panel.palette.showUnavailable(`The palettes could not be listed: ${error.message}`);
+  }
 }
 
 function watchPreparation(band) {
@@ -124,10 +180,20 @@ function wireEvents() {
   });
   imageView.addEventListener('viewchange', (event) => state.update(event.detail));
   imageView.addEventListener('pointer', (event) => readout.pointAt(event.detail));
+  panel.addEventListener('change', (event) => applyDisplay(event.detail));
+  panel.addEventListener('fit-view', () => fitLimitsToView());
 }
 
 async function start() {
   wireEvents();
+  panel.limits.fitEnabled = false;
+  panel.show(state.current.display, null);
+  paintMask(state.current.display.masked);
+  const dropped = droppedParameters(location.search, state.current.display);
+  if (dropped.length > 0) {
+    message.show(`Left out of the link's display settings (out of range, or not used with the others): ${dropped.join(', ')}.`, 'link');
+  }
+  loadPalettes();
   try {
     fields = await listFields();
   } catch (error) {

@@ -1,6 +1,6 @@
 // The pannable, zoomable image: a Leaflet map in FITS pixel coordinates showing one HDU's tiles over a layer in the
 // masked colour (see mask-layer.js), so masked (transparent) pixels show that colour and nothing else does.
-import { Map as LeafletMap, SVG, Rectangle, TileLayer, Control, Point } from 'leaflet';
+import { Map as LeafletMap, SVG, Rectangle, TileLayer, Control, Point, Util } from 'leaflet';
 import { createPixelCrs, imageBounds } from './pixel-crs.js';
 import { MaskLayer } from './mask-layer.js';
 import { FitControl } from './fit-control.js';
@@ -43,6 +43,50 @@ export class ImageView extends EventTarget {
       if (this.#keyboardProbe) this.#setPointer(null);
       this.#setKeyboardProbe(false);
     });
+    // The display panel opening or closing resizes the view without resizing the window.
+    new ResizeObserver(() => this.#map?.invalidateSize({ pan: false })).observe(container);
+  }
+
+  /**
+   * The FITS pixels (1-based, inclusive) of the shown image that are at least partly on screen, or null when none
+   * is: pixel i covers [i - 0.5, i + 0.5).
+   */
+  get visibleBox() {
+    if (this.#map === null) return null;
+    const bounds = this.#map.getBounds();
+    const first = (low) => Math.floor(low - 0.5) + 1;
+    const last = (high) => Math.ceil(high + 0.5) - 1;
+    const x0 = Math.max(1, first(bounds.getWest()));
+    const x1 = Math.min(this.#geometry.width, last(bounds.getEast()));
+    const y0 = Math.max(1, first(bounds.getSouth()));
+    const y1 = Math.min(this.#geometry.height, last(bounds.getNorth()));
+    return x0 <= x1 && y0 <= y1 ? { x0, y0, x1, y1 } : null;
+  }
+
+  /**
+   * The same image drawn another way (new display settings): each tile on screen keeps its old picture until the
+   * new one has arrived, so a change never flashes the background.
+   */
+  restyle(tileUrl) {
+    if (this.#tiles === null || this.#tileUrl === tileUrl) return;
+    this.#tileUrl = tileUrl;
+    this.#tiles.setUrl(tileUrl, true);
+    for (const { el, coords } of Object.values(this.#tiles._tiles)) {
+      const src = Util.template(tileUrl, { x: coords.x, y: coords.y, z: coords.z });
+      el.dataset.wanted = src;
+      if (!el.complete || !el.src) {
+        el.src = src;
+        continue;
+      }
+      const next = new Image();
+      const swap = () => {
+        // A later change may have asked for another picture meanwhile.
+        if (el.dataset.wanted === src) el.src = src;
+      };
+      next.onload = swap;
+      next.onerror = swap;
+      next.src = src;
+    }
   }
 
   /** The centre (FITS pixels) and zoom, or null before anything is shown. */

@@ -1,7 +1,9 @@
 // The view state lives here and nowhere else: controls read it and ask it to change, and every change is mirrored
-// into the page URL so that reloading or sharing the link opens the same view.
+// into the page URL so that reloading or sharing the link opens the same view, display settings included.
+import { EMPTY_DISPLAY, normaliseDisplay, parseDisplayQuery, displayParameters, sameDisplay } from './display-query.js';
 
-const EMPTY = Object.freeze({ field: null, band: null, hdu: null, x: null, y: null, z: null });
+const EMPTY = Object.freeze({ field: null, band: null, hdu: null, x: null, y: null, z: null, display: EMPTY_DISPLAY });
+const VIEW_KEYS = Object.freeze(['field', 'band', 'hdu', 'x', 'y', 'z']);
 
 // A hundredth of a pixel and of a zoom level is finer than anyone can see, and keeps links short.
 const DECIMALS = 2;
@@ -36,10 +38,15 @@ function normalise(state) {
     x: Number.isFinite(state.x) ? round(state.x) : null,
     y: Number.isFinite(state.y) ? round(state.y) : null,
     z: Number.isFinite(state.z) ? round(state.z) : null,
+    display: normaliseDisplay(state.display ?? EMPTY_DISPLAY),
   });
 }
 
-/** Reads a view from a URL query such as `?field=demo&band=red&hdu=3&x=1024.5&y=2048.5&z=3`. */
+/**
+ * Reads a view from a URL query such as `?field=demo&band=red&hdu=3&x=1024.5&y=2048.5&z=3&stretch=log&a=300`:
+ * the display parameters are those of the tile URLs, except that `masked` is the colour the page paints masked
+ * pixels in.
+ */
 export function parseViewQuery(search) {
   const query = new URLSearchParams(search);
   return normalise({
@@ -49,21 +56,23 @@ export function parseViewQuery(search) {
     x: parseNumber(query.get('x')),
     y: parseNumber(query.get('y')),
     z: parseNumber(query.get('z')),
+    display: parseDisplayQuery(query),
   });
 }
 
 /** Writes a view as a URL query, in a fixed order so equal views give equal links. */
 export function formatViewQuery(state) {
   const query = new URLSearchParams();
-  for (const key of Object.keys(EMPTY)) {
+  for (const key of VIEW_KEYS) {
     if (state[key] !== null) query.set(key, String(state[key]));
   }
+  for (const [name, value] of displayParameters(state.display ?? EMPTY_DISPLAY)) query.set(name, value);
   const text = query.toString();
   return text ? `?${text}` : '';
 }
 
 /**
- * The field, band, HDU, centre (FITS pixels, 1-based) and zoom being viewed. Fires `change` with the new state in
+ * The field, band, HDU, centre (FITS pixels, 1-based), zoom and display settings being viewed. Fires `change` with the new state in
  * `detail` after every update that changed something.
  */
 export class ViewState extends EventTarget {
@@ -86,10 +95,10 @@ export class ViewState extends EventTarget {
     return this.#state;
   }
 
-  /** Merges `changes` into the state; null clears a key. */
+  /** Merges `changes` into the state; null clears a key. `display` replaces the display settings as a whole. */
   update(changes) {
     const next = normalise({ ...this.#state, ...changes });
-    if (Object.keys(EMPTY).every((key) => next[key] === this.#state[key])) return;
+    if (VIEW_KEYS.every((key) => next[key] === this.#state[key]) && sameDisplay(next.display, this.#state.display)) return;
     this.#state = next;
     this.#mirrorToUrl();
     this.dispatchEvent(new CustomEvent('change', { detail: next }));

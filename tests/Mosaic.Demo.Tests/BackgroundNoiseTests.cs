@@ -38,7 +38,7 @@ public sealed class BackgroundNoiseTests(SmallField field)
             operations.Add(new { op = "pix2world", file, ext = chip.ExtName, pixels = new[] { new[] { (box[0] + box[2]) / 2.0, (box[1] + box[3]) / 2.0 } } });
             operations.Add(new { op = "header", file, ext = chip.ExtName, keys = new[] { "GAIN", "RDNOISE" } });
         }
-        var results = DebianPython.Probe(operations.ToArray());
+        var results = AstropyProbe.Run(operations.ToArray());
 
         var levelRatios = new List<double>();
         var sigmaRatios = new List<double>();

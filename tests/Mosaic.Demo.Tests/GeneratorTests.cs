@@ -96,7 +96,7 @@ public sealed class GeneratorTests(SmallField field)
         };
         foreach (var chip in chips)
             ops.Add(new { op = "header", file = field.FileOf("green"), ext = chip.Index + 1, keys = new[] { "XTENSION", "EXTNAME", "BITPIX", "NAXIS1", "NAXIS2", "BUNIT", "FILTER", "GAIN", "RDNOISE", "SATURATE" } });
-        var results = DebianPython.Probe(ops.ToArray());
+        var results = AstropyProbe.Run(ops.ToArray());
 
         var primary = results[0]!;
         Assert.Equal(0, (int)primary["NAXIS"]!);

@@ -20,7 +20,7 @@ public sealed class NebulaTests(SmallField field)
             operations.Add(new { op = "annulus_median", file = field.FileOf(band), exts, centre, rMin = 0.0, rMax = 0.5 * nebula.CoreRadiusArcsec });
             operations.Add(new { op = "annulus_median", file = field.FileOf(band), exts, centre, rMin = 0.85 * nebula.ShellRadiusArcsec, rMax = 1.15 * nebula.ShellRadiusArcsec });
         }
-        var results = DebianPython.Probe(operations.ToArray());
+        var results = AstropyProbe.Run(operations.ToArray());
 
         var (xi, eta) = Sky.Tangent(scene.FieldCentre, nebula.Centre.RaDegrees, nebula.Centre.DecDegrees);
         var core = new double[3];

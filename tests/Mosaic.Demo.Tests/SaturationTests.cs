@@ -18,7 +18,7 @@ public sealed class SaturationTests(SmallField field)
         var scene = field.Scene;
         var bandIndex = scene.Options.Bands.ToList().FindIndex(b => b.Name == bandName);
         var band = scene.Options.Bands[bandIndex];
-        var headers = DebianPython.Probe(scene.Chips.Select(c => (object)new
+        var headers = AstropyProbe.Run(scene.Chips.Select(c => (object)new
         {
             op = "header", file = field.FileOf(bandName), ext = c.ExtName, keys = new[] { "GAIN", "SATURATE" },
         }).ToArray());
@@ -45,7 +45,7 @@ public sealed class SaturationTests(SmallField field)
         }
         Assert.True(saturatedSeen >= 4, $"only {saturatedSeen} saturated stars landed on chips");
 
-        var results = DebianPython.Probe(operations.ToArray());
+        var results = AstropyProbe.Run(operations.ToArray());
         long totalNaN = 0;
         for (var c = 0; c < results.Count; c++)
         {
@@ -65,7 +65,7 @@ public sealed class SaturationTests(SmallField field)
         var star = scene.Stars[scene.Ghost.SourceStarId];
         var chip = scene.Chips.First(c => c.Contains(c.Wcs.SkyToPixel(star.Position), 10));
         var p = chip.Wcs.SkyToPixel(star.Position);
-        var results = DebianPython.Probe(
+        var results = AstropyProbe.Run(
             new { op = "header", file = field.FileOf("red"), ext = chip.ExtName, keys = new[] { "GAIN", "SATURATE" } },
             new { op = "nan_census", file = field.FileOf("red"), ext = chip.ExtName, pixels = new[] { new[] { p.X, p.Y } } });
         var fullWell = (double)results[0]!["GAIN"]! * (double)results[0]!["SATURATE"]!;
@@ -85,8 +85,8 @@ public sealed class SaturationTests(SmallField field)
         foreach (var band in new[] { "blue", "green", "red" })
         foreach (var chip in field.Scene.Chips)
             ops.Add(new { op = "header", file = field.FileOf(band), ext = chip.ExtName, keys = new[] { "SATURATE" } });
-        var results = DebianPython.Probe(ops.ToArray());
-        var stats = DebianPython.Probe(new[] { "blue", "green", "red" }
+        var results = AstropyProbe.Run(ops.ToArray());
+        var stats = AstropyProbe.Run(new[] { "blue", "green", "red" }
             .SelectMany(b => field.Scene.Chips.Select(c => (object)new { op = "box_stats", file = field.FileOf(b), ext = c.ExtName, boxes = new[] { new[] { 0, 0, c.Width - 1, c.Height - 1 } } }))
             .ToArray());
         for (var i = 0; i < results.Count; i++)

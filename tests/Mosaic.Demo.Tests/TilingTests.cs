@@ -14,7 +14,7 @@ public sealed class TilingTests(SmallField field)
         var chips = field.Scene.Chips;
         var file = field.FileOf("green");
         var outlines = chips.Select(Outline).ToArray();
-        var skies = DebianPython.Probe(chips.Select((c, i) => (object)new { op = "pix2world", file, ext = c.ExtName, pixels = outlines[i] }).ToArray());
+        var skies = AstropyProbe.Run(chips.Select((c, i) => (object)new { op = "pix2world", file, ext = c.ExtName, pixels = outlines[i] }).ToArray());
 
         // Every chip's outline, seen in every other chip's pixel frame.
         var operations = new List<object>();
@@ -27,7 +27,7 @@ public sealed class TilingTests(SmallField field)
             operations.Add(new { op = "world2pix", file, ext = chips[j].ExtName, world });
             pairs.Add((i, j));
         }
-        var projected = DebianPython.Probe(operations.ToArray());
+        var projected = AstropyProbe.Run(operations.ToArray());
 
         var gap = field.Options.GapPixels;
         var neighbourGaps = 0;
@@ -66,7 +66,7 @@ public sealed class TilingTests(SmallField field)
     public void Chip_columns_run_east_to_west_and_rows_south_to_north_on_the_sky()
     {
         var chips = field.Scene.Chips;
-        var centres = DebianPython.Probe(chips.Select(c => (object)new
+        var centres = AstropyProbe.Run(chips.Select(c => (object)new
         {
             op = "pix2world", file = field.FileOf("red"), ext = c.ExtName,
             pixels = new[] { new[] { (c.Width - 1) / 2.0, (c.Height - 1) / 2.0 } },

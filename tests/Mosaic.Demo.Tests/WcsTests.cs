@@ -32,7 +32,7 @@ public sealed class WcsTests(SmallField field)
             }
         }
 
-        var results = DebianPython.Probe(operations.ToArray());
+        var results = AstropyProbe.Run(operations.ToArray());
         for (var i = 0; i < results.Count; i++)
         {
             var world = results[i]!["world"]!.AsArray();
@@ -61,7 +61,7 @@ public sealed class WcsTests(SmallField field)
             operations.Add(new { op = "sip_inverse", file = field.FileOf("red"), ext = chip.ExtName, pixels });
             operations.Add(new { op = "pix2world", file = field.FileOf("red"), ext = chip.ExtName, pixels });
         }
-        var first = DebianPython.Probe(operations.ToArray());
+        var first = AstropyProbe.Run(operations.ToArray());
 
         var back = new List<object>();
         for (var c = 0; c < field.Scene.Chips.Count; c++)
@@ -76,7 +76,7 @@ public sealed class WcsTests(SmallField field)
             var world = first[2 * c + 1]!["world"]!.AsArray().Select(p => new[] { p![0]!.GetValue<double>(), p[1]!.GetValue<double>() }).ToArray();
             back.Add(new { op = "world2pix", file = field.FileOf("red"), ext = field.Scene.Chips[c].ExtName, world });
         }
-        var second = DebianPython.Probe(back.ToArray());
+        var second = AstropyProbe.Run(back.ToArray());
         for (var c = 0; c < field.Scene.Chips.Count; c++)
         {
             var pixels = second[c]!["pixels"]!.AsArray();
@@ -94,7 +94,7 @@ public sealed class WcsTests(SmallField field)
         foreach (var chip in chips) operations.Add(new { op = "header", file = field.FileOf("blue"), ext = chip.ExtName, keys });
         // The outer corner of the first chip is a field corner; the linear WCS alone shows the distortion there.
         operations.Add(new { op = "pix2world", file = field.FileOf("blue"), ext = chips[0].ExtName, pixels = new[] { new[] { -0.5, -0.5 } } });
-        var results = DebianPython.Probe(operations.ToArray());
+        var results = AstropyProbe.Run(operations.ToArray());
 
         foreach (var (chip, header) in chips.Zip(results.Take(chips.Count)))
         {

@@ -1,4 +1,5 @@
 using System.Text.Json;
+using Mosaic.Testing;
 
 namespace Mosaic.Server.Tests;
 
@@ -58,7 +59,7 @@ print(json.dumps(out))
         Root = Path.Combine(Path.GetTempPath(), $"mosaic-server-tests-{Guid.NewGuid():N}");
         DataDirectory = Path.Combine(Root, "data");
         Directory.CreateDirectory(DataDirectory);
-        var json = ReferencePython.Run(WriterScript, DataDirectory);
+        var json = DebianPython.RunCode(WriterScript, [DataDirectory]);
         Reference = JsonDocument.Parse(json);
     }
 

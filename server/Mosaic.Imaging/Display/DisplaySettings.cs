@@ -10,7 +10,7 @@ namespace Mosaic.Imaging.Display;
 public sealed record DisplaySettings
 {
     /// <summary>Format tag at the head of <see cref="CanonicalKey"/>: bump it when the meaning of a key changes so cached tiles are not reused.</summary>
-    private const string KeyVersion = "d1";
+    private const string KeyVersion = "d2";
 
     /// <summary>Lower limit: this many MAD sigmas under the median, so the sky noise shows as texture above black.</summary>
     public const double DefaultSigmasBelow = 2;
@@ -42,8 +42,11 @@ public sealed record DisplaySettings
         init => field = value ?? throw new ArgumentNullException(nameof(Palette), "Palette must be given");
     } = new GrayPalette();
 
+    /// <summary>How masked pixels are drawn: transparent by default (the client paints its own colour under tiles).</summary>
+    public MaskedColor Masked { get; init; } = MaskedColor.Transparent;
+
     /// <summary>A stable text form, the same for equal settings: part of tile cache keys and ETags. No '/', quote or space.</summary>
-    public string CanonicalKey => $"{KeyVersion}:{Limits.CanonicalKey};{Stretch.CanonicalKey};{Palette.CanonicalKey}";
+    public string CanonicalKey => $"{KeyVersion}:{Limits.CanonicalKey};{Stretch.CanonicalKey};{Palette.CanonicalKey};{Masked.CanonicalKey}";
 
     /// <summary>Limits resolved against the band's field-wide statistics, compiled for the tile loop.</summary>
     public ToneMap Compile(BandStatistics statistics, ValueHistogram histogram)
@@ -52,6 +55,16 @@ public sealed record DisplaySettings
         ArgumentNullException.ThrowIfNull(histogram);
         var limits = Limits.Resolve(statistics, histogram);
         var curve = Stretch.Resolve(new StretchContext(limits, statistics, histogram));
-        return ToneMap.Create(limits, curve, Palette);
+        return ToneMap.Create(limits, curve, Palette, Masked);
+    }
+
+    /// <summary>The settings resolved for a band without compiling the tile table: limits, stretch parameters, colour bar.</summary>
+    public ResolvedDisplay Resolve(BandStatistics statistics, ValueHistogram histogram)
+    {
+        ArgumentNullException.ThrowIfNull(statistics);
+        ArgumentNullException.ThrowIfNull(histogram);
+        var limits = Limits.Resolve(statistics, histogram);
+        var curve = Stretch.Resolve(new StretchContext(limits, statistics, histogram));
+        return new ResolvedDisplay(CanonicalKey, limits, curve, Palette, Masked);
     }
 }

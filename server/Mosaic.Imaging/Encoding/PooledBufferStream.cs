@@ -32,6 +32,20 @@ internal sealed class PooledBufferStream : Stream
         return span;
     }
 
+    /// <summary>At least sizeHint writable bytes at the end, not yet counted as written (see <see cref="Advance"/>).</summary>
+    public Span<byte> GetSpan(int sizeHint)
+    {
+        Ensure(sizeHint);
+        return _buffer.AsSpan(_length);
+    }
+
+    /// <summary>Counts count bytes written into the span from <see cref="GetSpan"/>.</summary>
+    public void Advance(int count)
+    {
+        if (count < 0 || (long)_length + count > _buffer.Length) throw new ArgumentOutOfRangeException(nameof(count), count, "advance past the buffer");
+        _length += count;
+    }
+
     public override void Write(ReadOnlySpan<byte> buffer)
     {
         Ensure(buffer.Length);

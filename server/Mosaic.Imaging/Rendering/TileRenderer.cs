@@ -1,5 +1,4 @@
 using System.Buffers;
-using Mosaic.Imaging.Encoding;
 using Mosaic.Imaging.Pyramids;
 
 namespace Mosaic.Imaging.Rendering;
@@ -9,7 +8,10 @@ public static class TileRenderer
 {
     public const int TilePixels = PyramidGeometry.TileSize * PyramidGeometry.TileSize;
 
-    /// <summary>8-bit grayscale PNG; grayscale + alpha where the tile has masked or outside pixels, which are transparent.</summary>
+    /// <summary>
+    /// 8-bit grayscale PNG for gray palettes (gray + alpha where the tile has masked or outside pixels and they are
+    /// transparent, RGB where they get a colour); indexed PNG for colour palettes. Masked as in the tone map.
+    /// </summary>
     public static byte[] RenderPng(Pyramid pyramid, int z, int x, int y, ToneMap toneMap)
     {
         ArgumentNullException.ThrowIfNull(pyramid);
@@ -35,25 +37,6 @@ public static class TileRenderer
         ArgumentNullException.ThrowIfNull(toneMap);
         if (tile.Length != TilePixels)
             throw new ArgumentException($"a tile holds {TilePixels} values ({PyramidGeometry.TileSize} x {PyramidGeometry.TileSize}), not {tile.Length}", nameof(tile));
-        var levels = ArrayPool<byte>.Shared.Rent(TilePixels);
-        try
-        {
-            var masked = toneMap.Apply(tile, levels);
-            if (masked == 0) return PngEncoder.EncodeGray(levels.AsSpan(0, TilePixels), PyramidGeometry.TileSize, PyramidGeometry.TileSize);
-            var grayAlpha = ArrayPool<byte>.Shared.Rent(2 * TilePixels);
-            try
-            {
-                GrayAlpha.Interleave(levels.AsSpan(0, TilePixels), tile, grayAlpha);
-                return PngEncoder.EncodeGrayAlpha(grayAlpha.AsSpan(0, 2 * TilePixels), PyramidGeometry.TileSize, PyramidGeometry.TileSize);
-            }
-            finally
-            {
-                ArrayPool<byte>.Shared.Return(grayAlpha);
-            }
-        }
-        finally
-        {
-            ArrayPool<byte>.Shared.Return(levels);
-        }
+        return ImageComposer.Render(tile, PyramidGeometry.TileSize, PyramidGeometry.TileSize, toneMap, toneMap.Masked);
     }
 }

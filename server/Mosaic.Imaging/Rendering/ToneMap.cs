@@ -1,4 +1,5 @@
 using System.Numerics;
+using Mosaic.Imaging.Display;
 using Mosaic.Imaging.Display.Limits;
 using Mosaic.Imaging.Display.Palettes;
 using Mosaic.Imaging.Display.Stretches;
@@ -25,12 +26,16 @@ public sealed class ToneMap
     private readonly LookupTable? _table;
     private readonly LevelBreaks? _breaks;
 
-    private ToneMap(ValueRange limits, LookupTable? table, LevelBreaks? breaks)
+    private ToneMap(ValueRange limits, LookupTable? table, LevelBreaks? breaks, IPalette palette, MaskedColor masked)
     {
         Lo = limits.Lo;
         Hi = limits.Hi;
         _table = table;
         _breaks = breaks;
+        Palette = palette;
+        Masked = masked;
+        IsGray = palette.IsGray;
+        if (!IsGray) PaletteBytes = PaletteEntries.For(palette, masked);
     }
 
     /// <summary>Value shown at the lowest level (u = 0).</summary>
@@ -38,6 +43,22 @@ public sealed class ToneMap
 
     /// <summary>Value shown at the highest level (u = 1).</summary>
     public double Hi { get; }
+
+    /// <summary>The palette compiled in.</summary>
+    public IPalette Palette { get; }
+
+    /// <summary>How masked pixels are drawn (from the display settings; a region render may override it).</summary>
+    public MaskedColor Masked { get; }
+
+    /// <summary>
+    /// True where levels are grays (level = gray DN, written as 8-bit grayscale); false where a level is an index
+    /// into <see cref="PaletteBytes"/>: index 0 is reserved for masked pixels, index k = 1..255 is the palette at
+    /// t = (k - 1) / 254, so a colour palette shows 255 steps.
+    /// </summary>
+    public bool IsGray { get; }
+
+    /// <summary>The 256 colours of an indexed tile as PLTE bytes (r, g, b per index), index 0 the masked colour (black when transparent); null for gray.</summary>
+    internal byte[]? PaletteBytes { get; }
 
     /// <summary>Entries in the lookup table; 0 where the curve is too steep for any table and levels come from breakpoints.</summary>
     public int TableEntries => _table?.Entries ?? 0;
@@ -47,6 +68,10 @@ public sealed class ToneMap
     /// <see cref="MaximumEntries"/>) is where the table search starts; it grows until the 1 DN bound holds.
     /// </summary>
     public static ToneMap Create(ValueRange limits, IStretchCurve curve, IPalette palette, int minimumEntries = DefaultEntries)
+        => Create(limits, curve, palette, MaskedColor.Transparent, minimumEntries);
+
+    /// <summary>As above, with how masked pixels are drawn.</summary>
+    public static ToneMap Create(ValueRange limits, IStretchCurve curve, IPalette palette, MaskedColor masked, int minimumEntries = DefaultEntries)
     {
         ArgumentNullException.ThrowIfNull(curve);
         ArgumentNullException.ThrowIfNull(palette);
@@ -60,13 +85,17 @@ public sealed class ToneMap
         {
             var table = LookupTable.Build(limits, levelOf, entries);
             var step = table.LargestStep();
-            if (step <= 1) return new ToneMap(limits, table, null);
-            if (entries == MaximumEntries) return new ToneMap(limits, null, LevelBreaks.Find(limits, levelOf, table));
+            if (step <= 1) return new ToneMap(limits, table, null, palette, masked);
+            if (entries == MaximumEntries) return new ToneMap(limits, null, LevelBreaks.Find(limits, levelOf, table), palette, masked);
             // Jump straight to about the size the measured slope asks for rather than doubling blindly.
             var wanted = (long)entries * step;
             entries = (int)Math.Min(MaximumEntries, Math.Max(2L * entries, (long)BitOperations.RoundUpToPowerOf2((ulong)wanted)));
         }
     }
+
+    /// <summary>The same levels with another masked colour (a region render's own), sharing the compiled table.</summary>
+    public ToneMap WithMasked(MaskedColor masked)
+        => masked == Masked ? this : new ToneMap(new ValueRange(Lo, Hi), _table, _breaks, Palette, masked);
 
     /// <summary>
     /// Levels for values; returns how many were masked (NaN), whose level is 0. Values below Lo get the level of

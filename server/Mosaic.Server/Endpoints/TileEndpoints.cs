@@ -1,6 +1,6 @@
+using System.ComponentModel;
 using Microsoft.AspNetCore.Http.HttpResults;
 using Microsoft.Net.Http.Headers;
-using Mosaic.Imaging.Display;
 using Mosaic.Server.Fields;
 using Mosaic.Server.Tiles;
 
@@ -12,17 +12,21 @@ public static class TileEndpoints
     {
         var group = routes.MapGroup("/tiles").WithTags("Tiles");
         group.MapGet("/{field}/{z:int}/{x:int}/{y:int}.png", GetTile)
-            .WithSummary("A 256 x 256 PNG tile: zoom 0 holds the whole HDU, the deepest zoom one image pixel per tile pixel; y counts down from the top (highest FITS y). Masked and outside pixels are transparent. 503 with Retry-After while the pyramid is built.")
+            .WithSummary("A 256 x 256 PNG tile: zoom 0 holds the whole HDU, the deepest zoom one image pixel per tile pixel; y counts down from the top (highest FITS y). Display settings come from the query (see its parameters); masked and outside pixels are transparent unless 'masked' names a colour. 503 with Retry-After while the pyramid is built.")
             .Produces(StatusCodes.Status200OK, contentType: "image/png");
         return group;
     }
 
     private static async Task<Results<FileContentHttpResult, StatusCodeHttpResult>> GetTile(
-        string field, int z, int x, int y, string? band, string? hdu, string? v,
+        string field, int z, int x, int y,
+        [Description("Band name (case-insensitive); the field's first band when absent.")] string? band,
+        [Description("HDU index or EXTNAME; the band's first image HDU when absent.")] string? hdu,
+        [Description("The band's version (from /api/fields): a URL carrying it is cached for good.")] string? v,
+        [AsParameters] DisplayParameters display,
         HttpContext context, FieldCatalog catalog, TileService tiles)
     {
         var target = catalog.Get(field).ResolveBand(band).ResolveHdu(hdu);
-        var tile = await tiles.GetTileAsync(target, z, x, y, DisplaySettings.Default);
+        var tile = await tiles.GetTileAsync(target, z, x, y, DisplayQuery.Parse(display));
 
         var headers = context.Response.Headers;
         headers.ETag = tile.ETag;

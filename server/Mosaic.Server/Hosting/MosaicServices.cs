@@ -2,6 +2,8 @@ using Mosaic.Server.Endpoints;
 using Mosaic.Server.Errors;
 using Mosaic.Server.Fields;
 using Mosaic.Server.Pyramids;
+using Mosaic.Server.Regions;
+using Mosaic.Server.Rendering;
 using Mosaic.Server.Tiles;
 using Mosaic.TileCache;
 
@@ -21,7 +23,10 @@ public static class MosaicServices
         services.AddSingleton(new MemoryTileStoreOptions());
         services.AddSingleton<ITileStore, MemoryTileStore>();
         services.AddSingleton<TileCacheService>();
+        services.AddSingleton<DisplayCompiler>();
         services.AddSingleton<TileService>();
+        services.AddSingleton<RegionImageService>();
+        services.AddSingleton<RegionStatisticsService>();
         return services;
     }
 
@@ -35,6 +40,9 @@ public static class MosaicServices
         app.MapHealthEndpoints();
         app.MapFieldEndpoints();
         app.MapTileEndpoints();
+        app.MapStatisticsEndpoints();
+        app.MapDisplayEndpoints();
+        app.MapRenderEndpoints();
 
         // Scan at start so the pyramids begin building before anyone asks.
         app.Lifetime.ApplicationStarted.Register(() => app.Services.GetRequiredService<FieldCatalog>().RefreshIfStale());

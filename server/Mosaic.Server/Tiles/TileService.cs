@@ -1,4 +1,3 @@
-using System.Collections.Concurrent;
 using Mosaic.Imaging.Display;
 using Mosaic.Imaging.Rendering;
 using Mosaic.Server.Errors;
@@ -9,11 +8,8 @@ using Mosaic.TileCache;
 namespace Mosaic.Server.Tiles;
 
 /// <summary>Turns a tile request into PNG bytes: pyramid, field-wide tone map, encoder, with the cache in front.</summary>
-public sealed class TileService(PyramidService pyramids, TileCacheService cache)
+public sealed class TileService(PyramidService pyramids, DisplayCompiler displays, TileCacheService cache)
 {
-    private const int MaxCompiledDisplays = 512;
-    private readonly ConcurrentDictionary<string, ToneMap> _toneMaps = new(StringComparer.Ordinal);
-
     public async ValueTask<RenderedTile> GetTileAsync(FieldHdu hdu, int z, int x, int y, DisplaySettings display)
     {
         var geometry = hdu.Geometry;
@@ -23,20 +19,10 @@ public sealed class TileService(PyramidService pyramids, TileCacheService cache)
             throw MosaicRequestException.NotFound("Tile", $"Tile {x},{y} is outside the {geometry.TilesX(z)} x {geometry.TilesY(z)} tiles of zoom {z} for {hdu.Description}.");
 
         var pyramid = pyramids.GetReady(hdu);
-        var toneMap = ToneMapFor(hdu.Band, display);
+        var toneMap = displays.ToneMapFor(hdu.Band, display);
         var key = $"{hdu.PyramidKey}/{display.CanonicalKey}/{z}/{x}/{y}";
         var (bytes, hit) = await cache.GetOrCreateAsync(key, () => TileRenderer.RenderPng(pyramid, z, x, y, toneMap));
         return new RenderedTile(bytes, ETagOf(key), hit);
-    }
-
-    private ToneMap ToneMapFor(FieldBand band, DisplaySettings display)
-    {
-        var key = band.Version + "/" + display.CanonicalKey;
-        if (_toneMaps.TryGetValue(key, out var toneMap)) return toneMap;
-        var summary = pyramids.GetBandSummary(band);
-        toneMap = display.Compile(summary.Statistics, summary.Histogram);
-        if (_toneMaps.Count >= MaxCompiledDisplays) _toneMaps.Clear();
-        return _toneMaps.GetOrAdd(key, toneMap);
     }
 
     private static string ETagOf(string key)

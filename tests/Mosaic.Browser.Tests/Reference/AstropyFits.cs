@@ -1,5 +1,5 @@
-using System.Diagnostics;
 using System.Text.Json;
+using Mosaic.Testing;
 
 namespace Mosaic.Browser.Tests.Reference;
 
@@ -9,8 +9,6 @@ namespace Mosaic.Browser.Tests.Reference;
 /// </summary>
 public static class AstropyFits
 {
-    private const string Python = "/usr/bin/python3";
-
     public static FitsPixel Pixel(string file, int hdu, int x, int y)
     {
         var result = Run("pixel", file, hdu.ToString(), x.ToString(), y.ToString());
@@ -47,28 +45,8 @@ public static class AstropyFits
 
     private static JsonElement Run(string command, params string[] arguments)
     {
-        if (!File.Exists(Python))
-            throw new InvalidOperationException($"{Python} is missing: these tests read FITS with Debian's python3-astropy (apt-get install python3-astropy).");
         var script = Path.Combine(AppContext.BaseDirectory, "Reference", "fits_reference.py");
-        var start = new ProcessStartInfo(Python) { RedirectStandardOutput = true, RedirectStandardError = true, UseShellExecute = false };
-        start.ArgumentList.Add(script);
-        start.ArgumentList.Add(command);
-        foreach (var argument in arguments) start.ArgumentList.Add(argument);
-        // Debian's own modules only: a PYTHONPATH or user site from elsewhere must not shadow them.
-        start.Environment.Remove("PYTHONPATH");
-        start.Environment["PYTHONNOUSERSITE"] = "1";
-        using var process = Process.Start(start) ?? throw new InvalidOperationException($"could not start {Python}");
-        var stdout = process.StandardOutput.ReadToEndAsync();
-        var stderr = process.StandardError.ReadToEndAsync();
-        if (!process.WaitForExit(TimeSpan.FromSeconds(60)))
-        {
-            process.Kill();
-            throw new TimeoutException($"astropy reference '{command}' took over 60 s");
-        }
-        if (process.ExitCode == 3)
-            throw new InvalidOperationException($"python3-astropy is required (apt-get install python3-astropy python3-numpy): {stdout.Result.Trim()}");
-        if (process.ExitCode != 0)
-            throw new InvalidOperationException($"astropy reference '{command}' failed ({process.ExitCode}): {stderr.Result}");
-        return JsonDocument.Parse(stdout.Result).RootElement.Clone();
+        var stdout = DebianPython.RunFile(script, [command, .. arguments], timeout: TimeSpan.FromSeconds(60));
+        return JsonDocument.Parse(stdout).RootElement.Clone();
     }
 }

@@ -4,6 +4,7 @@ using System.Numerics;
 using System.Text.Json;
 using Mosaic.Fits.Tests.Support;
 using Mosaic.Fits.Writing;
+using Mosaic.Testing;
 
 namespace Mosaic.Fits.Tests.Writing;
 
@@ -109,7 +110,7 @@ public sealed class WriterConformanceTests : IDisposable
         var copy = _temp.File("copied-by-cfitsio.fits");
         // CFITSIO (Debian libcfitsio-bin): fitscopy parses every header and copies every data unit; it fails on a
         // non-conforming header.
-        var (code, _, stderr) = Support.Astropy.Execute("/usr/bin/fitscopy", [path, copy]);
+        var (code, _, stderr) = ExternalProgram.Run("/usr/bin/fitscopy", [path, copy]);
         Assert.True(code == 0, $"fitscopy refused the file written by FitsWriter: {stderr}");
 
         using var file = FitsFile.Open(copy);

@@ -24,6 +24,21 @@ public sealed class DisplaySettingsTests
         DisplaySettings.Default with { Limits = new RobustLimits(10, 2) },
         DisplaySettings.Default with { Limits = new CombinedLimits(new RobustLimits(1, 1), new PercentileLimits(0, 99.9)) },
         DisplaySettings.Default with { Limits = new CombinedLimits(new PercentileLimits(0, 99.9), new RobustLimits(1, 1)) },
+        DisplaySettings.Default with { Stretch = new AsinhStretch(Softening.Sigmas(3), AsinhPivot.AtMedian) },
+        DisplaySettings.Default with { Stretch = new SqrtStretch() },
+        DisplaySettings.Default with { Stretch = new PowerStretch(2) },
+        DisplaySettings.Default with { Stretch = new PowerStretch(0.5) },
+        DisplaySettings.Default with { Stretch = new LogStretch(1000) },
+        DisplaySettings.Default with { Stretch = new LogStretch(10) },
+        DisplaySettings.Default with { Stretch = new HistEqStretch() },
+        DisplaySettings.Default with { Palette = new InvertedGrayPalette() },
+        DisplaySettings.Default with { Palette = new CubehelixPalette() },
+        DisplaySettings.Default with { Palette = new CubehelixPalette(0.5, -1.5, 1.0, 2.0) },
+        DisplaySettings.Default with { Palette = PaletteCatalog.Create("ember") },
+        DisplaySettings.Default with { Palette = PaletteCatalog.Create("glacier") },
+        DisplaySettings.Default with { Palette = PaletteCatalog.Create("lichen") },
+        DisplaySettings.Default with { Masked = MaskedColor.Parse("ff00ff") },
+        DisplaySettings.Default with { Masked = MaskedColor.Parse("00ff00") },
     ];
 
     [Fact]
@@ -33,7 +48,8 @@ public sealed class DisplaySettingsTests
         var settings = DisplaySettings.Default;
         Assert.Equal(new CombinedLimits(new RobustLimits(2, 2), new PercentileLimits(0, 99.9)), settings.Limits);
         Assert.Equal(new AsinhStretch(Softening.Sigmas(3)), settings.Stretch);
-        Assert.Null(((AsinhStretch)settings.Stretch).Pivot);
+        Assert.Equal(AsinhPivot.AtLo, ((AsinhStretch)settings.Stretch).Pivot);
+        Assert.Equal(MaskedColor.Transparent, settings.Masked);
         Assert.Equal(new GrayPalette(), settings.Palette);
     }
 
@@ -45,6 +61,16 @@ public sealed class DisplaySettingsTests
         Assert.Equal(a, b);
         Assert.Equal(a.CanonicalKey, b.CanonicalKey);
         Assert.Equal(DisplaySettings.Default.CanonicalKey, new DisplaySettings().CanonicalKey);
+        // Written differently, meaning the same: pivot given as -0 and 0, masked colour in either case, palette from
+        // the catalog or built, cubehelix with its default parameters spelled out.
+        var c = DisplaySettings.Default with { Stretch = new AsinhStretch(Softening.Sigmas(3), AsinhPivot.At(-0.0)), Masked = MaskedColor.Parse("FF00AA") };
+        var d = DisplaySettings.Default with { Stretch = new AsinhStretch(Softening.Sigmas(3), 0), Masked = MaskedColor.Parse("ff00aa") };
+        Assert.Equal(c.CanonicalKey, d.CanonicalKey);
+        Assert.Equal(c, d);
+        var e = DisplaySettings.Default with { Palette = PaletteCatalog.Create("cubehelix") };
+        var f = DisplaySettings.Default with { Palette = new CubehelixPalette(0.5, -1.5, 1, 1) };
+        Assert.Equal(e.CanonicalKey, f.CanonicalKey);
+        Assert.Equal(e, f);
     }
 
     [Fact]

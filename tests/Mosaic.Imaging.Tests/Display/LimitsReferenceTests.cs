@@ -27,7 +27,7 @@ public sealed class LimitsReferenceTests
         json.dump(out, open("expected.json", "w"))
         """;
 
-    private static readonly double[] Percents = [0, 0.5, 10, 50, 90.25, 99.5, 99.9, 100];
+    private static readonly double[] Percents = [0, 0.5, 10, 50, 90, 90.25, 99.5, 99.9, 100];
 
     private readonly float[] _field;
     private readonly BandStatistics _statistics;
@@ -75,6 +75,46 @@ public sealed class LimitsReferenceTests
         var expectedHi = Math.Min(median + above * sigma, _expected.GetProperty("max").GetDouble());
         Assert.InRange(range.Lo, expectedLo - medianTolerance - below * sigmaTolerance, expectedLo + medianTolerance + below * sigmaTolerance);
         Assert.InRange(range.Hi, expectedHi - medianTolerance - above * sigmaTolerance, expectedHi + medianTolerance + above * sigmaTolerance);
+    }
+
+    [Theory]
+    [InlineData(99.0)]
+    [InlineData(80.0)]
+    [InlineData(100.0)]
+    public void Percentile_limits_with_linear_stretch_match_astropy_PercentileInterval_within_1_DN(double percentile)
+    {
+        // astropy.visualization.PercentileInterval(p) keeps the central p percent: limits at (100 - p)/2 and
+        // 100 - (100 - p)/2, then (with clip) u = (v - lo)/(hi - lo) in [0, 1]; LinearStretch gives t = u.
+        using var folder = new TemporaryFolder();
+        OutsideReference.WriteFloat32(folder.File("values.f32"), _field);
+        File.WriteAllText(folder.File("p.json"), percentile.ToString("R", System.Globalization.CultureInfo.InvariantCulture));
+        OutsideReference.Run("""
+            from astropy.visualization import PercentileInterval
+            v = np.fromfile("values.f32", dtype="<f4").astype(np.float64)
+            interval = PercentileInterval(json.load(open("p.json")))
+            lo, hi = interval.get_limits(v)
+            f = v[np.isfinite(v)]
+            np.asarray(LinearStretch()(interval(f, clip=True), clip=True), "<f8").tofile("expected.f64")
+            json.dump([float(lo), float(hi)], open("limits.json", "w"))
+            """, folder.Path);
+        var limits = JsonSerializer.Deserialize<double[]>(File.ReadAllText(folder.File("limits.json")))!;
+        var tail = (100 - percentile) / 2;
+        var settings = new Mosaic.Imaging.Display.DisplaySettings
+        {
+            Limits = new PercentileLimits(tail, 100 - tail),
+            Stretch = new Mosaic.Imaging.Display.Stretches.LinearStretch(),
+        };
+        var toneMap = settings.Compile(_statistics, _histogram);
+        // The limits themselves as close to astropy's as the histogram allows (see AssertNear).
+        AssertNear((limits[0], Percent(tail).Gap), toneMap.Lo, $"astropy's lower limit for PercentileInterval({percentile})");
+        AssertNear((limits[1], Percent(100 - tail).Gap), toneMap.Hi, $"astropy's upper limit for PercentileInterval({percentile})");
+        var expected = OutsideReference.ReadFloat64(folder.File("expected.f64"));
+        var finite = _field.Where(v => !float.IsNaN(v)).ToArray();
+        Assert.Equal(finite.Length, expected.Length);
+        var levels = new byte[finite.Length];
+        toneMap.Apply(finite, levels);
+        for (var i = 0; i < finite.Length; i++)
+            Assert.True(Math.Abs(levels[i] - 255 * expected[i]) <= 1, $"v = {finite[i]:R}: level {levels[i]}, astropy 255 y = {255 * expected[i]:F3}");
     }
 
     private (double Value, double Gap) Percent(double p)

@@ -1,5 +1,5 @@
-using System.Diagnostics;
 using System.Runtime.InteropServices;
+using Mosaic.Testing;
 
 namespace Mosaic.Imaging.Tests.Display;
 
@@ -9,53 +9,17 @@ namespace Mosaic.Imaging.Tests.Display;
 /// </summary>
 internal static class OutsideReference
 {
-    public const string Interpreter = "/usr/bin/python3";
-
-    private const int MissingModule = 3;
-
+    // A failed import fails the run with the install command (Mosaic.Testing.DebianPython).
     private const string Prelude = """
         import sys, json
-        try:
-            import numpy as np
-            import astropy
-            from astropy.visualization import AsinhStretch, LinearStretch, ManualInterval
-            from PIL import Image
-        except ImportError as e:
-            sys.stderr.write(str(e))
-            sys.exit(3)
+        import numpy as np
+        import astropy
+        from astropy.visualization import AsinhStretch, LinearStretch, ManualInterval
+        from PIL import Image
         """;
 
-    /// <summary>Runs the script in <paramref name="folder"/> and returns what it printed.</summary>
-    public static string Run(string script, string folder)
-    {
-        if (!File.Exists(Interpreter))
-            throw new InvalidOperationException($"these checks need Debian's python3 at {Interpreter}: apt-get install python3-numpy python3-astropy python3-pil");
-        var start = new ProcessStartInfo(Interpreter)
-        {
-            WorkingDirectory = folder,
-            RedirectStandardInput = true,
-            RedirectStandardOutput = true,
-            RedirectStandardError = true,
-            UseShellExecute = false,
-        };
-        start.ArgumentList.Add("-");
-        foreach (var variable in new[] { "PYTHONPATH", "PYTHONHOME", "PYTHONSTARTUP", "PYTHONUSERBASE" }) start.Environment.Remove(variable);
-        using var process = Process.Start(start) ?? throw new InvalidOperationException($"could not start {Interpreter}");
-        var stdout = process.StandardOutput.ReadToEndAsync();
-        var stderr = process.StandardError.ReadToEndAsync();
-        process.StandardInput.Write(Prelude + "\n" + script);
-        process.StandardInput.Close();
-        if (!process.WaitForExit(TimeSpan.FromMinutes(2)))
-        {
-            process.Kill(entireProcessTree: true);
-            throw new TimeoutException("reference python script ran over two minutes");
-        }
-        if (process.ExitCode == MissingModule)
-            throw new InvalidOperationException($"these checks need Debian's python3-numpy, python3-astropy and python3-pil for {Interpreter} (apt-get install python3-numpy python3-astropy python3-pil): {stderr.Result.Trim()}");
-        if (process.ExitCode != 0)
-            throw new InvalidOperationException($"reference python script failed ({process.ExitCode}): {stderr.Result}\n{stdout.Result}");
-        return stdout.Result;
-    }
+    /// <summary>Runs the script (after the prelude) in <paramref name="folder"/> and returns what it printed.</summary>
+    public static string Run(string script, string folder) => DebianPython.RunCode(Prelude + "\n" + script, workingDirectory: folder);
 
     public static void WriteFloat64(string path, ReadOnlySpan<double> values) => File.WriteAllBytes(path, MemoryMarshal.AsBytes(values).ToArray());
 

@@ -111,4 +111,30 @@ public sealed class ParameterValidationTests
         Assert.Equal("Stretch", Assert.Throws<ArgumentNullException>(() => DisplaySettings.Default with { Stretch = null! }).ParamName);
         Assert.Equal("Palette", Assert.Throws<ArgumentNullException>(() => DisplaySettings.Default with { Palette = null! }).ParamName);
     }
+
+    [Theory]
+    [InlineData(0)]
+    [InlineData(-1)]
+    [InlineData(double.NaN)]
+    [InlineData(double.PositiveInfinity)]
+    public void Power_gamma_and_log_a_must_be_positive_and_finite(double value)
+    {
+        var gamma = Assert.Throws<ArgumentOutOfRangeException>(() => new PowerStretch(value));
+        Assert.Equal("gamma", gamma.ParamName);
+        Assert.Contains("gamma", gamma.Message);
+        var a = Assert.Throws<ArgumentOutOfRangeException>(() => new LogStretch(value));
+        Assert.Equal("a", a.ParamName);
+        Assert.Contains("a must be", a.Message);
+    }
+
+    [Theory]
+    [InlineData(double.NaN)]
+    [InlineData(double.NegativeInfinity)]
+    [InlineData(1e39)]
+    public void Asinh_pivot_must_be_a_finite_value(double value)
+        => Assert.Equal("pivot", Assert.Throws<ArgumentOutOfRangeException>(() => AsinhPivot.At(value)).ParamName);
+
+    [Fact]
+    public void Asinh_refuses_a_missing_pivot()
+        => Assert.Equal("pivot", Assert.Throws<ArgumentNullException>(() => new AsinhStretch(Softening.Sigmas(3), (AsinhPivot)null!)).ParamName);
 }

@@ -18,8 +18,21 @@ public sealed class StretchReferenceTests
         x = np.fromfile("values.f32", dtype="<f4").astype(np.float64)
         cfg = json.load(open("config.json"))
         u = ManualInterval(cfg["lo"], cfg["hi"])(x, clip=True)
-        if cfg["stretch"] == "asinh":
+        from astropy.visualization import SqrtStretch, PowerStretch, LogStretch, HistEqStretch
+        name = cfg["stretch"]
+        if name == "asinh":
             y = AsinhStretch(a=cfg["a"])(u, clip=True)
+        elif name == "sqrt":
+            y = SqrtStretch()(u, clip=True)
+        elif name == "power":
+            y = PowerStretch(cfg["a"])(u, clip=True)
+        elif name == "log":
+            y = LogStretch(a=cfg["a"])(u, clip=True)
+        elif name == "histeq":
+            # astropy equalises over the data it is given: the field's finite pixels within [lo, hi], normalised.
+            d = np.fromfile("field.f32", dtype="<f4").astype(np.float64)
+            d = d[np.isfinite(d) & (d >= cfg["lo"]) & (d <= cfg["hi"])]
+            y = HistEqStretch(ManualInterval(cfg["lo"], cfg["hi"])(d, clip=True))(u, clip=True)
         else:
             y = LinearStretch()(u, clip=True)
         np.asarray(y, "<f8").tofile("expected.f64")
@@ -49,6 +62,86 @@ public sealed class StretchReferenceTests
         AssertMatchesAstropy(settings, lo, hi, "linear", 0);
     }
 
+    [Theory]
+    [InlineData(36.0, 1000.0)]
+    [InlineData(-5.0, 5.0)]
+    [InlineData(0.0, 65535.0)] // steep at u = 0: table grows or breakpoints serve it
+    public void Sqrt_matches_astropy_SqrtStretch(double lo, double hi)
+    {
+        var settings = new DisplaySettings { Limits = new ManualLimits(lo, hi), Stretch = new SqrtStretch() };
+        AssertMatchesAstropy(settings, lo, hi, "sqrt", 0);
+    }
+
+    [Theory]
+    [InlineData(36.0, 1000.0, 2.0)]
+    [InlineData(-5.0, 5.0, 0.5)]
+    [InlineData(0.0, 65535.0, 3.7)]
+    [InlineData(0.0, 100.0, 0.1)]
+    public void Power_matches_astropy_PowerStretch(double lo, double hi, double gamma)
+    {
+        var settings = new DisplaySettings { Limits = new ManualLimits(lo, hi), Stretch = new PowerStretch(gamma) };
+        AssertMatchesAstropy(settings, lo, hi, "power", gamma);
+    }
+
+    [Theory]
+    [InlineData(36.0, 1000.0, 1000.0)]
+    [InlineData(-5.0, 5.0, 10.0)]
+    [InlineData(0.0, 65535.0, 1.0e5)]
+    [InlineData(0.0, 1.0, 0.01)]
+    public void Log_matches_astropy_LogStretch(double lo, double hi, double a)
+    {
+        var settings = new DisplaySettings { Limits = new ManualLimits(lo, hi), Stretch = new LogStretch(a) };
+        AssertMatchesAstropy(settings, lo, hi, "log", a);
+    }
+
+    [Theory]
+    [InlineData(20.0, 400.0)]
+    [InlineData(50.0, 90.0)]
+    public void HistEq_matches_astropy_HistEqStretch_on_the_fields_pixels(double below, double above)
+    {
+        var sky = SyntheticSky.Make(400, 300, seed: 11, holes: true);
+        // astropy rescales the data it equalises to its own min..max: limits at pixel values make that the identity.
+        double lo = sky.Where(v => v >= below).Min(), hi = sky.Where(v => v <= above).Max();
+        var (statistics, histogram) = SyntheticSky.Statistics(sky);
+        var settings = new DisplaySettings { Limits = new ManualLimits(lo, hi), Stretch = new HistEqStretch() };
+        var toneMap = settings.Compile(statistics, histogram);
+        var values = Probe(lo, hi).Concat(sky.Where(v => !float.IsNaN(v)).Take(30000)).ToArray();
+        AssertMatchesAstropy(toneMap, values, lo, hi, "histeq", 0, sky);
+    }
+
+    [Fact]
+    public void Asinh_pivot_at_the_median_matches_the_contract_formula_evaluated_by_numpy()
+    {
+        // astropy has no asinh with an offset pivot; numpy evaluates the contract's formula
+        // t = (asinh((v - c)/soft) - asinh((lo - c)/soft)) / (asinh((hi - c)/soft) - asinh((lo - c)/soft)), c = median.
+        var sky = SyntheticSky.Make(300, 200, seed: 13);
+        var (statistics, histogram) = SyntheticSky.Statistics(sky);
+        const double lo = 20, hi = 2000, soft = 30;
+        var settings = new DisplaySettings { Limits = new ManualLimits(lo, hi), Stretch = new AsinhStretch(Softening.Physical(soft), AsinhPivot.AtMedian) };
+        var toneMap = settings.Compile(statistics, histogram);
+        var values = Probe(lo, hi);
+        using var folder = new TemporaryFolder();
+        OutsideReference.WriteFloat32(folder.File("values.f32"), values);
+        File.WriteAllText(folder.File("config.json"), string.Create(CultureInfo.InvariantCulture,
+            $$"""{"lo": {{lo:R}}, "hi": {{hi:R}}, "soft": {{soft:R}}, "c": {{statistics.Median:R}}}"""));
+        OutsideReference.Run("""
+            x = np.fromfile("values.f32", dtype="<f4").astype(np.float64)
+            cfg = json.load(open("config.json"))
+            f = lambda v: np.arcsinh((v - cfg["c"]) / cfg["soft"])
+            v = np.clip(x, cfg["lo"], cfg["hi"])
+            t = np.clip((f(v) - f(cfg["lo"])) / (f(cfg["hi"]) - f(cfg["lo"])), 0, 1)
+            t.astype("<f8").tofile("expected.f64")
+            """, folder.Path);
+        var expected = OutsideReference.ReadFloat64(folder.File("expected.f64"));
+        var levels = new byte[values.Length];
+        toneMap.Apply(values, levels);
+        for (var i = 0; i < values.Length; i++)
+            Assert.True(Math.Abs(levels[i] - 255 * expected[i]) <= 1, $"v = {values[i]:R}: level {levels[i]}, numpy 255 t = {255 * expected[i]:F3}");
+        // The median is not lo, so the pivot made a difference: mid-grey falls elsewhere than with pivot lo.
+        var atLo = (settings with { Stretch = new AsinhStretch(Softening.Physical(soft)) }).Compile(statistics, histogram);
+        Assert.NotEqual(atLo.LevelOf((float)statistics.Median + 40), toneMap.LevelOf((float)statistics.Median + 40));
+    }
+
     [Fact]
     public void Default_display_matches_astropy_with_the_fields_own_limits()
     {
@@ -71,9 +164,10 @@ public sealed class StretchReferenceTests
         AssertMatchesAstropy(settings.Compile(statistics, histogram), Probe(lo, hi), lo, hi, stretch, a);
     }
 
-    private static void AssertMatchesAstropy(ToneMap toneMap, float[] values, double lo, double hi, string stretch, double a)
+    private static void AssertMatchesAstropy(ToneMap toneMap, float[] values, double lo, double hi, string stretch, double a, float[]? field = null)
     {
         using var folder = new TemporaryFolder();
+        if (field is not null) OutsideReference.WriteFloat32(folder.File("field.f32"), field);
         OutsideReference.WriteFloat32(folder.File("values.f32"), values);
         File.WriteAllText(folder.File("config.json"), string.Create(CultureInfo.InvariantCulture,
             $$"""{"lo": {{lo:R}}, "hi": {{hi:R}}, "a": {{a:R}}, "stretch": "{{stretch}}"}"""));

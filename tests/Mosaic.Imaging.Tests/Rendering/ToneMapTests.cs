@@ -181,4 +181,22 @@ public sealed class ToneMapTests
         // 255 x slope / (4 x entries) where the curve is steepest), never systematically, as truncation would be.
         Assert.True(off <= 0.08 * values.Length, $"{off} of {values.Length} levels are one off the exact formula");
     }
+
+    [Theory]
+    [InlineData(20.0)] // table
+    [InlineData(0.2)] // too steep for any table: level breakpoints
+    public void Inverted_gray_is_255_minus_gray_on_every_path(double soft)
+    {
+        var range = new ValueRange(0, 65535);
+        var curve = new AsinhCurve(0, 65535, soft, 0);
+        var gray = ToneMap.Create(range, curve, new GrayPalette());
+        var inverted = ToneMap.Create(range, curve, new Mosaic.Imaging.Display.Palettes.InvertedGrayPalette());
+        Assert.Equal(gray.TableEntries == 0, inverted.TableEntries == 0);
+        var values = Enumerable.Range(0, 70000).Select(i => (float)(i * i / 70000.0)).Append(float.NaN).ToArray();
+        var g = new byte[values.Length];
+        var v = new byte[values.Length];
+        Assert.Equal(1, gray.Apply(values, g));
+        Assert.Equal(1, inverted.Apply(values, v));
+        for (var i = 0; i < values.Length - 1; i++) Assert.Equal(255 - g[i], v[i]);
+    }
 }

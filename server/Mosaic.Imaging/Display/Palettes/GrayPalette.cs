@@ -1,9 +1,24 @@
+using Mosaic.Imaging.Display.Colors;
+
 namespace Mosaic.Imaging.Display.Palettes;
 
 /// <summary>DN = round(255 t), black at the lower limit.</summary>
 public sealed record GrayPalette : IPalette
 {
-    public string CanonicalKey => "gray";
+    public const string PaletteName = "gray";
 
-    public byte Level(double t) => (byte)Math.Round(255 * Math.Clamp(double.IsNaN(t) ? 0 : t, 0, 1), MidpointRounding.AwayFromZero);
+    public string CanonicalKey => PaletteName;
+
+    public string Name => PaletteName;
+
+    public bool IsGray => true;
+
+    /// <summary>Magenta: far from every gray (chroma about 115 in CIELAB).</summary>
+    public Rgb DefaultMaskedColor => new(255, 0, 255);
+
+    public Rgb Color(double t)
+    {
+        var level = GrayLevel.Of(t);
+        return new Rgb(level, level, level);
+    }
 }

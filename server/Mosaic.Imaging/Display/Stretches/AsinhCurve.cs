@@ -26,6 +26,17 @@ public sealed class AsinhCurve : IStretchCurve
             throw new ArgumentException("soft is too large or too small against hi - lo: asinh((hi - c)/soft) - asinh((lo - c)/soft) must be > 0 and finite", nameof(soft));
     }
 
+    public string Name => AsinhStretch.StretchName;
+
+    public IReadOnlyDictionary<string, double> Parameters => new Dictionary<string, double> { ["soft"] = _soft, ["pivot"] = _pivot };
+
+    public double Inverse(double t)
+    {
+        var f = _fLo + Math.Clamp(double.IsNaN(t) ? 0 : t, 0, 1) * _fSpan;
+        var v = _pivot + _soft * Math.Sinh(f);
+        return Math.Clamp((v - _lo) / _width, 0, 1);
+    }
+
     public double Map(double u)
     {
         var t = (F(_lo + Math.Clamp(u, 0, 1) * _width) - _fLo) / _fSpan;

@@ -6,24 +6,29 @@ namespace Mosaic.Imaging.Display.Stretches;
 /// </summary>
 public sealed record AsinhStretch : IStretch
 {
+    public const string StretchName = "asinh";
+
     /// <summary>Softening, as a share of the shown range, used where a sigma-relative amount comes to 0 (a field with no spread), so it still renders.</summary>
     private const double FallbackSoftShare = 1e-3;
 
     /// <param name="soft">Softening, &gt; 0, physical or in sigmas.</param>
     /// <param name="pivot">Physical value c where the curve is steepest; null for the lower limit.</param>
     public AsinhStretch(Softening soft, double? pivot = null)
+        : this(soft, pivot is { } c ? AsinhPivot.At(c) : AsinhPivot.AtLo)
+    {
+    }
+
+    public AsinhStretch(Softening soft, AsinhPivot pivot)
     {
         if (soft.IsEmpty) throw new ArgumentOutOfRangeException(nameof(soft), "soft must be > 0");
-        if (pivot is { } c && (!double.IsFinite(c) || Math.Abs(c) > float.MaxValue))
-            throw new ArgumentOutOfRangeException(nameof(pivot), c, "pivot must be finite (within float32 range)");
         Soft = soft;
-        Pivot = pivot;
+        Pivot = pivot ?? throw new ArgumentNullException(nameof(pivot), "pivot must be given");
     }
 
     public Softening Soft { get; }
-    public double? Pivot { get; }
+    public AsinhPivot Pivot { get; }
 
-    public string CanonicalKey => $"asinh({Soft.CanonicalKey},{(Pivot is { } c ? KeyText.Number(c) : "lo")})";
+    public string CanonicalKey => $"asinh({Soft.CanonicalKey},{Pivot.CanonicalKey})";
 
     public IStretchCurve Resolve(StretchContext context)
     {
@@ -32,6 +37,6 @@ public sealed record AsinhStretch : IStretch
         var soft = Soft.PhysicalFor(context.Statistics.MadSigma);
         // A sigma-relative softening on a field with no spread (or no pixels) would be 0: fall back to a share of the range.
         if (!(soft > 0) || !double.IsFinite(soft)) soft = limits.Width * FallbackSoftShare;
-        return new AsinhCurve(limits.Lo, limits.Hi, soft, Pivot ?? limits.Lo);
+        return new AsinhCurve(limits.Lo, limits.Hi, soft, Pivot.Resolve(limits, context.Statistics));
     }
 }

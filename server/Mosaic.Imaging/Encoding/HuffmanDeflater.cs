@@ -1,0 +1,218 @@
+using System.Buffers.Binary;
+using System.Runtime.CompilerServices;
+using System.Runtime.InteropServices;
+using System.Runtime.Intrinsics;
+using System.Runtime.Intrinsics.X86;
+
+namespace Mosaic.Imaging.Encoding;
+
+/// <summary>
+/// A zlib stream (RFC 1950) of deflate blocks (RFC 1951) with dynamic Huffman codes for literals only, no string
+/// matches: what zlib's Huffman-only strategy writes, without its match-finder set-up and per-call overhead. Each
+/// call to <see cref="WriteBlock"/> is one block with its own code, fitted to that block's byte counts.
+/// </summary>
+internal sealed class HuffmanDeflater
+{
+    private const int Literals = 257; // bytes 0..255 and end-of-block (256)
+    private const int EndOfBlock = 256;
+    private const int MaxCodeLength = 15;
+    private const int MaxLengthCodeLength = 7;
+    private const uint AdlerModulus = 65521;
+    private const int AdlerChunk = 5552; // largest run whose sums cannot overflow 32 bits before the modulus (RFC 1950)
+
+    // Order in which the code-length code's lengths are sent (RFC 1951, 3.2.7).
+    private static ReadOnlySpan<byte> LengthOrder => [16, 17, 18, 0, 8, 7, 9, 6, 10, 5, 11, 4, 12, 3, 13, 2, 14, 1, 15];
+
+    private readonly PooledBufferStream _output;
+    private uint _adlerA = 1;
+    private uint _adlerB;
+    private ulong _bits;
+    private int _bitCount;
+    private bool _finished;
+
+    public HuffmanDeflater(PooledBufferStream output)
+    {
+        _output = output;
+        // CMF: deflate with a 32 KiB window; FLG: fastest-compression level, check bits making CMF·256 + FLG a multiple of 31.
+        _output.WriteByte(0x78);
+        _output.WriteByte(0x01);
+    }
+
+    public void WriteBlock(ReadOnlySpan<byte> data, bool final)
+    {
+        if (_finished) throw new InvalidOperationException("the zlib stream is already finished");
+        Span<long> frequencies = stackalloc long[Literals];
+        Count(data, frequencies);
+        frequencies[EndOfBlock] = 1;
+        Span<byte> lengths = stackalloc byte[Literals + 1];
+        HuffmanCode.Lengths(frequencies, MaxCodeLength, lengths[..Literals]);
+        // One distance code of length 1, unused: RFC 1951 3.2.7 allows it, and every inflater accepts it.
+        lengths[Literals] = 1;
+        Span<uint> codes = stackalloc uint[Literals];
+        HuffmanCode.Codes(lengths[..Literals], codes);
+
+        // Worst case: 15 bits a byte, plus the header.
+        var span = _output.GetSpan((int)Math.Min(int.MaxValue, (long)data.Length * MaxCodeLength / 8 + 512));
+        var at = 0;
+        Put(span, ref at, final ? 1u : 0u, 1);
+        Put(span, ref at, 2, 2); // dynamic Huffman codes
+        WriteCodeLengths(span, ref at, lengths);
+
+        // Code in the low 16 bits, its length above: one load a symbol.
+        Span<uint> packed = stackalloc uint[Literals];
+        for (var k = 0; k < Literals; k++) packed[k] = codes[k] | ((uint)lengths[k] << 16);
+        ref var source = ref MemoryMarshal.GetReference(data);
+        ref var entry = ref MemoryMarshal.GetReference(packed);
+        var bits = _bits;
+        var count = _bitCount;
+        var n = data.Length;
+        var i = 0;
+        // Two codes of at most 15 bits fit above fewer than 32 pending bits in the 64-bit register.
+        for (; i <= n - 2; i += 2)
+        {
+            var e0 = Unsafe.Add(ref entry, Unsafe.Add(ref source, i));
+            var e1 = Unsafe.Add(ref entry, Unsafe.Add(ref source, i + 1));
+            bits |= (ulong)(e0 & 0xFFFF) << count;
+            count += (int)(e0 >> 16);
+            bits |= (ulong)(e1 & 0xFFFF) << count;
+            count += (int)(e1 >> 16);
+            if (count >= 32)
+            {
+                BinaryPrimitives.WriteUInt32LittleEndian(span[at..], (uint)bits);
+                at += 4;
+                bits >>= 32;
+                count -= 32;
+            }
+        }
+        _bits = bits;
+        _bitCount = count;
+        for (; i < n; i++) Put(span, ref at, codes[data[i]], lengths[data[i]]);
+        Put(span, ref at, codes[EndOfBlock], lengths[EndOfBlock]);
+        if (final) at = Drain(span, at);
+        _output.Advance(at);
+        Adler(data);
+        if (final)
+        {
+            Span<byte> adler = stackalloc byte[4];
+            BinaryPrimitives.WriteUInt32BigEndian(adler, (_adlerB << 16) | _adlerA);
+            _output.Write(adler);
+            _finished = true;
+        }
+    }
+
+    public bool IsFinished => _finished;
+
+    private static void Count(ReadOnlySpan<byte> data, Span<long> frequencies)
+    {
+        // Four tables so runs of one byte value do not stall on the same counter; indices are bytes, so in range.
+        Span<uint> counts = stackalloc uint[4 * 256];
+        ref var c = ref MemoryMarshal.GetReference(counts);
+        ref var d = ref MemoryMarshal.GetReference(data);
+        var i = 0;
+        var n = data.Length;
+        for (; i <= n - 4; i += 4)
+        {
+            var word = Unsafe.ReadUnaligned<uint>(ref Unsafe.Add(ref d, i));
+            Unsafe.Add(ref c, (int)(word & 0xFF))++;
+            Unsafe.Add(ref c, 256 + (int)((word >> 8) & 0xFF))++;
+            Unsafe.Add(ref c, 512 + (int)((word >> 16) & 0xFF))++;
+            Unsafe.Add(ref c, 768 + (int)(word >> 24))++;
+        }
+        for (; i < n; i++) Unsafe.Add(ref c, Unsafe.Add(ref d, i))++;
+        for (var b = 0; b < 256; b++) frequencies[b] = (long)counts[b] + counts[256 + b] + counts[512 + b] + counts[768 + b];
+    }
+
+    // HLIT, HDIST, HCLEN, the code-length code, then the 258 lengths coded with it (no run-length codes).
+    private void WriteCodeLengths(Span<byte> span, ref int at, ReadOnlySpan<byte> lengths)
+    {
+        Span<long> frequencies = stackalloc long[19];
+        foreach (var l in lengths) frequencies[l]++;
+        Span<byte> lengthLengths = stackalloc byte[19];
+        HuffmanCode.Lengths(frequencies, MaxLengthCodeLength, lengthLengths);
+        Span<uint> lengthCodes = stackalloc uint[19];
+        HuffmanCode.Codes(lengthLengths, lengthCodes);
+        Put(span, ref at, Literals - 257, 5);
+        Put(span, ref at, 0, 5); // one distance code
+        Put(span, ref at, 19 - 4, 4);
+        foreach (var symbol in LengthOrder) Put(span, ref at, lengthLengths[symbol], 3);
+        foreach (var l in lengths) Put(span, ref at, lengthCodes[l], lengthLengths[l]);
+    }
+
+    private void Put(Span<byte> span, ref int at, uint code, int length)
+    {
+        _bits |= (ulong)code << _bitCount;
+        _bitCount += length;
+        if (_bitCount >= 32)
+        {
+            BinaryPrimitives.WriteUInt32LittleEndian(span[at..], (uint)_bits);
+            at += 4;
+            _bits >>= 32;
+            _bitCount -= 32;
+        }
+    }
+
+    // The final block ends the stream on a byte boundary.
+    private int Drain(Span<byte> span, int at)
+    {
+        while (_bitCount > 0)
+        {
+            span[at++] = (byte)_bits;
+            _bits >>= 8;
+            _bitCount -= 8;
+        }
+        _bits = 0;
+        _bitCount = 0;
+        return at;
+    }
+
+    private void Adler(ReadOnlySpan<byte> data)
+    {
+        uint a = _adlerA, b = _adlerB;
+        while (!data.IsEmpty)
+        {
+            var chunk = data[..Math.Min(AdlerChunk, data.Length)];
+            var k = 0;
+            if (Avx2.IsSupported) k = AdlerVector(chunk, ref a, ref b);
+            // Four bytes a step: b gains 4a + 4x0 + 3x1 + 2x2 + x3, shortening the chain through a.
+            for (; k <= chunk.Length - 4; k += 4)
+            {
+                uint x0 = chunk[k], x1 = chunk[k + 1], x2 = chunk[k + 2], x3 = chunk[k + 3];
+                b += 4 * a + 4 * x0 + 3 * x1 + 2 * x2 + x3;
+                a += x0 + x1 + x2 + x3;
+            }
+            for (; k < chunk.Length; k++)
+            {
+                a += chunk[k];
+                b += a;
+            }
+            a %= AdlerModulus;
+            b %= AdlerModulus;
+            data = data[chunk.Length..];
+        }
+        (_adlerA, _adlerB) = (a, b);
+    }
+
+    // 32 bytes a step: a gains their sum; b gains 32 a (for a before the step) plus the sum of (32 - j) x_j.
+    // Sums stay below 2^32 within one chunk of at most AdlerChunk bytes, as in the scalar loop.
+    private static int AdlerVector(ReadOnlySpan<byte> chunk, ref uint a, ref uint b)
+    {
+        ref var p = ref MemoryMarshal.GetReference(chunk);
+        var weights = Vector256.Create((sbyte)32, 31, 30, 29, 28, 27, 26, 25, 24, 23, 22, 21, 20, 19, 18, 17, 16, 15, 14, 13, 12, 11, 10, 9, 8, 7, 6, 5, 4, 3, 2, 1);
+        var ones = Vector256.Create((short)1);
+        var sumA = Vector256<uint>.Zero;
+        var sumB = Vector256<uint>.Zero;
+        var priorA = Vector256<uint>.Zero;
+        var steps = chunk.Length / 32;
+        for (var s = 0; s < steps; s++)
+        {
+            var x = Vector256.LoadUnsafe(ref p, (nuint)(32 * s));
+            priorA += sumA;
+            sumA += Avx2.SumAbsoluteDifferences(x, Vector256<byte>.Zero).AsUInt32();
+            sumB += Avx2.MultiplyAddAdjacent(Avx2.MultiplyAddAdjacent(x, weights), ones).AsUInt32();
+        }
+        var byteSum = Vector256.Sum(sumA);
+        b += (uint)(32 * steps) * a + 32 * Vector256.Sum(priorA) + Vector256.Sum(sumB);
+        a += byteSum;
+        return 32 * steps;
+    }
+}

@@ -1,0 +1,54 @@
+using System.ComponentModel;
+using System.Text;
+using Microsoft.AspNetCore.Http.HttpResults;
+using Mosaic.Server.Errors;
+using Mosaic.Server.Fields;
+using Mosaic.Server.Rendering;
+
+namespace Mosaic.Server.Endpoints;
+
+public static class RenderEndpoints
+{
+    public static RouteGroupBuilder MapRenderEndpoints(this IEndpointRouteBuilder routes)
+    {
+        var group = routes.MapGroup("/api/fields").WithTags("Render");
+        group.MapGet("/{field}/render.png", Render)
+            .WithSummary("A PNG of the box [x0, x1] x [y0, y1] (FITS 1-based, inclusive) of one HDU at native resolution, row y1 at the top, with the display the query describes (at most 50 megapixels). Gray palette: 8-bit grayscale (gray + alpha with masked=transparent and masked pixels, RGB with a masked colour); other palettes: indexed.")
+            .Produces(StatusCodes.Status200OK, contentType: "image/png");
+        return group;
+    }
+
+    private static FileContentHttpResult Render(
+        string field,
+        [Description("Band name (case-insensitive); the field's first band when absent.")] string? band,
+        [Description("HDU index or EXTNAME; may be left out where every band has one image HDU.")] string? hdu,
+        [Description("First column, FITS 1-based.")] string? x0,
+        [Description("First row, FITS 1-based (the bottom row of the image).")] string? y0,
+        [Description("Last column (inclusive).")] string? x1,
+        [Description("Last row (inclusive), drawn at the top.")] string? y1,
+        [AsParameters] DisplayParameters display,
+        HttpContext context, FieldCatalog catalog, RegionImageService images)
+    {
+        var target = catalog.Get(field).ResolveBand(band);
+        var image = RegionQuery.ResolveHdu(target, hdu);
+        var box = RegionQuery.RequiredBox(image, x0, y0, x1, y1);
+        if (box.PixelCount > RegionImageService.MaxPixels)
+            throw MosaicRequestException.BadParameter("x0,y0,x1,y1",
+                $"The box is {box.Width} x {box.Height} = {box.PixelCount} pixels; render.png makes at most {RegionImageService.MaxPixels} (50 megapixels): ask for a smaller box.");
+        var settings = DisplayQuery.Parse(display, paletteMaskByDefault: true);
+        var png = images.RenderPng(image, box, settings);
+
+        var name = $"{target.Field.Id}-{target.Name}-{image.Index}-{box.X0}-{box.Y0}-{box.X1}-{box.Y1}.png";
+        context.Response.Headers.ContentDisposition = $"inline; filename=\"{SafeFileName(name)}\"";
+        context.Response.Headers.CacheControl = "no-cache";
+        return TypedResults.File(png, "image/png");
+    }
+
+    /// <summary>Field and band names come from file names: keep the header a plain quoted ASCII string.</summary>
+    private static string SafeFileName(string name)
+    {
+        var text = new StringBuilder(name.Length);
+        foreach (var c in name) text.Append(char.IsAsciiLetterOrDigit(c) || c is '-' or '_' or '.' ? c : '_');
+        return text.ToString();
+    }
+}
