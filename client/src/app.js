@@ -77,17 +77,22 @@ function open(candidate, { band: bandName = null, hdu: hduIndex = null, view = n
   watchPreparation(band);
 }
 
-function paintMask(masked) {
+// Each palette's own masked colour (from /api/palettes): a colour none of its values can pass for. Used while
+// the URL names none, so a colourful palette never shares its masked colour with one of its own steps.
+const paletteMasks = new Map();
+
+function paintMask(display) {
   const root = document.documentElement.style;
-  if (masked === null) root.removeProperty('--mask-colour');
-  else root.setProperty('--mask-colour', `#${masked}`);
+  const own = paletteMasks.get(display.palette ?? 'gray') ?? defaultMask;
+  panel.palette.setDefaultMask(own);
+  root.setProperty('--mask-colour', `#${display.masked ?? own}`);
 }
 
 // New display settings: the URL, the tiles (only if what they show changed) and the panel follow.
 function applyDisplay(next) {
   const before = state.current.display;
   state.update({ display: next });
-  paintMask(next.masked);
+  paintMask(next);
   if (shown === null) {
     panel.show(next, null);
     return;
@@ -117,7 +122,12 @@ async function fitLimitsToView() {
 
 async function loadPalettes() {
   try {
-    panel.palette.setPalettes(await listPalettes());
+    const palettes = await listPalettes();
+    for (const palette of palettes) {
+      if (typeof palette.defaultMasked === 'string') paletteMasks.set(palette.name, palette.defaultMasked.replace('#', '').toLowerCase());
+    }
+    panel.palette.setPalettes(palettes);
+    paintMask(state.current.display);
   } catch (error) {
     panel.palette.showUnavailable(`The palettes could not be listed: ${error.message}`);
   }
@@ -188,7 +198,7 @@ async function start() {
   wireEvents();
   panel.limits.fitEnabled = false;
   panel.show(state.current.display, null);
-  paintMask(state.current.display.masked);
+  paintMask(state.current.display);
   const dropped = droppedParameters(location.search, state.current.display);
   if (dropped.length > 0) {
     message.show(`Left out of the link's display settings (out of range, or not used with the others): ${dropped.join(', ')}.`, 'link');

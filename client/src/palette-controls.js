@@ -100,6 +100,12 @@ export class PaletteControls extends EventTarget {
     for (const { spec, field } of this.#fields) field.show(display[spec.key] ?? DEFAULTS[spec.key]);
   }
 
+  /** The colour masked pixels take while none is chosen: the current palette's own. */
+  setDefaultMask(hex) {
+    this.#defaultMask = hex;
+    if (this.#maskReset.disabled && document.activeElement !== this.#maskInput) this.#maskInput.value = `#${hex}`;
+  }
+
   showMask(masked) {
     const hex = masked ?? this.#defaultMask;
     if (document.activeElement !== this.#maskInput) this.#maskInput.value = `#${hex}`;

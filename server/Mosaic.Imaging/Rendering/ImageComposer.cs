@@ -19,40 +19,72 @@ internal static class ImageComposer
         if (height <= 0) throw new ArgumentOutOfRangeException(nameof(height), height, "height must be > 0");
         if (valuesTopDown.Length != (long)width * height)
             throw new ArgumentException($"{valuesTopDown.Length} values cannot fill {width} x {height} pixels", nameof(valuesTopDown));
-        var anyMasked = NanCount.Of(valuesTopDown) > 0;
+        var rows = new SpanRows(valuesTopDown, width);
+        return Render(ref rows, height, width, height, map, masked);
+    }
 
-        if (!map.IsGray)
-        {
-            var entries = map.WithMasked(masked).PaletteBytes!;
-            ReadOnlySpan<byte> transparency = masked.IsTransparent && anyMasked ? [0] : [];
-            using var writer = new PngWriter(width, height, PngColorType.Indexed, PngCompression.HuffmanOnly, entries, transparency);
-            for (var y = 0; y < height; y++) map.Apply(valuesTopDown.Slice(y * width, width), writer.NextRow());
-            return writer.Finish();
-        }
-        if (!anyMasked)
-        {
-            using var writer = new PngWriter(width, height, PngColorType.Gray);
-            for (var y = 0; y < height; y++) map.Apply(valuesTopDown.Slice(y * width, width), writer.NextRow());
-            return writer.Finish();
-        }
-        var levels = ArrayPool<byte>.Shared.Rent(width);
+    /// <summary>
+    /// The one implementation: rows come a band of <paramref name="rowsPerBand"/> at a time. The colour type must be
+    /// known before the first row is written, so a first pass looks for a masked value wherever that matters and
+    /// stops at the first band holding one; the band still in hand is not read again.
+    /// </summary>
+    public static byte[] Render<TRows>(scoped ref TRows rows, int rowsPerBand, int width, int height, ToneMap map, MaskedColor masked)
+        where TRows : IValueRows, allows ref struct
+    {
+        ArgumentNullException.ThrowIfNull(map);
+        if (width <= 0) throw new ArgumentOutOfRangeException(nameof(width), width, "width must be > 0");
+        if (height <= 0) throw new ArgumentOutOfRangeException(nameof(height), height, "height must be > 0");
+        ArgumentOutOfRangeException.ThrowIfNegativeOrZero(rowsPerBand);
+
+        ReadOnlySpan<float> inHand = default;
+        var inHandFirst = -1;
+        var anyMasked = false;
+        // A colour palette with an opaque masked colour is indexed either way: no need to look.
+        if (map.IsGray || masked.IsTransparent)
+            for (var y0 = 0; y0 < height && !anyMasked; y0 += rowsPerBand)
+            {
+                inHand = rows.Read(y0, Math.Min(rowsPerBand, height - y0));
+                inHandFirst = y0;
+                anyMasked = NanCount.Of(inHand) > 0;
+            }
+
+        var colorType = !map.IsGray ? PngColorType.Indexed
+            : !anyMasked ? PngColorType.Gray
+            : masked.IsTransparent ? PngColorType.GrayAlpha : PngColorType.Rgb;
+        byte[]? entries = colorType == PngColorType.Indexed ? map.WithMasked(masked).PaletteBytes! : null;
+        ReadOnlySpan<byte> transparency = colorType == PngColorType.Indexed && masked.IsTransparent && anyMasked ? [0] : [];
+        var expands = colorType is PngColorType.GrayAlpha or PngColorType.Rgb;
+        var levels = expands ? ArrayPool<byte>.Shared.Rent(width) : null;
         try
         {
-            using var writer = new PngWriter(width, height, masked.IsTransparent ? PngColorType.GrayAlpha : PngColorType.Rgb);
+            using var writer = new PngWriter(width, height, colorType, PngCompression.HuffmanOnly, entries, transparency);
             var (r, g, b) = (masked.Color.R, masked.Color.G, masked.Color.B);
-            for (var y = 0; y < height; y++)
+            for (var y0 = 0; y0 < height; y0 += rowsPerBand)
             {
-                var row = valuesTopDown.Slice(y * width, width);
-                var rowLevels = levels.AsSpan(0, width);
-                map.Apply(row, rowLevels);
-                if (masked.IsTransparent) GrayAlpha.Interleave(rowLevels, row, writer.NextRow());
-                else GrayRgb.Expand(rowLevels, row, writer.NextRow(), r, g, b);
+                if (y0 != inHandFirst)
+                {
+                    inHand = rows.Read(y0, Math.Min(rowsPerBand, height - y0));
+                    inHandFirst = y0;
+                }
+                for (var offset = 0; offset < inHand.Length; offset += width)
+                {
+                    var row = inHand.Slice(offset, width);
+                    if (!expands)
+                    {
+                        map.Apply(row, writer.NextRow());
+                        continue;
+                    }
+                    var rowLevels = levels.AsSpan(0, width);
+                    map.Apply(row, rowLevels);
+                    if (colorType == PngColorType.GrayAlpha) GrayAlpha.Interleave(rowLevels, row, writer.NextRow());
+                    else GrayRgb.Expand(rowLevels, row, writer.NextRow(), r, g, b);
+                }
             }
             return writer.Finish();
         }
         finally
         {
-            ArrayPool<byte>.Shared.Return(levels);
+            if (levels is not null) ArrayPool<byte>.Shared.Return(levels);
         }
     }
 }

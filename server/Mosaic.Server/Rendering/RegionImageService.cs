@@ -19,9 +19,12 @@ public sealed class RegionImageService(DisplayCompiler displays)
             throw new ArgumentOutOfRangeException(nameof(box), box, $"the box runs past the {hdu.Plane.Width} x {hdu.Plane.Height} image");
         // Compiled before reading, so a band still being prepared fails fast without touching the pixels.
         var toneMap = displays.ToneMapFor(hdu.Band, display);
-        var values = GC.AllocateUninitializedArray<float>((int)box.PixelCount);
-        for (var k = 0; k < box.Height; k++)
-            hdu.Plane.ReadRow(box.StoredRowFromTop(k), box.X0 - 1, values.AsSpan(k * box.Width, box.Width));
-        return RegionRenderer.RenderPng(values, box.Width, box.Height, toneMap, display.Masked);
+        var plane = hdu.Plane;
+        // Rows on demand, a bounded band at a time: a 50-megapixel box never sits in memory as floats.
+        return RegionRenderer.RenderPng((firstRowFromTop, destination) =>
+        {
+            for (var offset = 0; offset < destination.Length; offset += box.Width, firstRowFromTop++)
+                plane.ReadRow(box.StoredRowFromTop(firstRowFromTop), box.X0 - 1, destination.Slice(offset, box.Width));
+        }, box.Width, box.Height, toneMap, display.Masked);
     }
 }
