@@ -244,12 +244,7 @@ public sealed class DisplayPanelTests(MosaicSite site)
     public async Task The_masked_colour_repaints_masked_pixels_lives_in_the_page_url_and_leaves_tile_urls_alone()
     {
         var band = site.Demo.DefaultBand;
-        var file = site.BandFile(band);
-        var (hdu, masked) = site.Demo.Band(band).Hdus
-            .Select(h => (Hdu: h, Pixel: AstropyFits.MaskedPixel(file, h.Index, margin: 4)))
-            .FirstOrDefault(found => found.Pixel is not null);
-        Assert.True(hdu is not null && masked is not null, "astropy finds no NaN pixel in any HDU of the demo band");
-        var (mx, my) = masked.Value;
+        var (hdu, mx, my) = site.FirstMaskedPixel(band);
         var z = hdu.MaxZoom + 3;
 
         await using var viewer = await site.OpenViewerAsync(new ViewQuery(site.Demo.Id, band, hdu.Index, mx, my, z).ToQuery());

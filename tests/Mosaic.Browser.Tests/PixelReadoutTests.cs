@@ -75,12 +75,7 @@ public sealed class PixelReadoutTests(MosaicSite site)
     {
         var band = site.Demo.DefaultBand;
         var file = site.BandFile(band);
-        // The first HDU of the band that has a NaN pixel (saturated stars are NaN in the demo field).
-        var (hdu, masked) = site.Demo.Band(band).Hdus
-            .Select(h => (Hdu: h, Pixel: AstropyFits.MaskedPixel(file, h.Index, margin: 4)))
-            .FirstOrDefault(found => found.Pixel is not null);
-        Assert.True(hdu is not null && masked is not null, "astropy finds no NaN pixel in any HDU of the demo band");
-        var (mx, my) = masked.Value;
+        var (hdu, mx, my) = site.FirstMaskedPixel(band);
         Assert.Null(AstropyFits.Pixel(file, hdu.Index, mx, my).Value);
         var z = hdu.MaxZoom + ZoomPastNative;
 

@@ -30,6 +30,17 @@ public sealed class MosaicSite : IAsyncLifetime
 
     public string BandFile(string band) => Path.Combine(DataDirectory, DemoFieldId, Demo.Band(band).File);
 
+    /// <summary>The first HDU of a band with a NaN pixel (saturated stars are NaN in the demo field), as astropy finds it.</summary>
+    public (HduInfo Hdu, int X, int Y) FirstMaskedPixel(string band)
+    {
+        var file = BandFile(band);
+        var (hdu, masked) = Demo.Band(band).Hdus
+            .Select(h => (Hdu: h, Pixel: Reference.AstropyFits.MaskedPixel(file, h.Index, margin: 4)))
+            .FirstOrDefault(found => found.Pixel is not null);
+        if (hdu is null || masked is null) throw new InvalidOperationException($"astropy finds no NaN pixel in any HDU of band {band}");
+        return (hdu, masked.Value.X, masked.Value.Y);
+    }
+
     public HttpClient CreateHttpClient() => new() { BaseAddress = BaseAddress, Timeout = TimeSpan.FromSeconds(30) };
 
     public async Task InitializeAsync()
