@@ -43,7 +43,10 @@ public sealed class FieldBand
         Version = version;
         foreach (var hdu in file.Hdus)
             if (hdu.Image is { } plane) _hdus.Add(new FieldHdu(this, hdu, plane));
-        if (_hdus.Count == 0) Error = $"{FileName}: no HDU holds a 2-D image";
+        if (_hdus.Count == 0)
+            Error = file.Hdus.Any(h => h.Header.GetBool("ZIMAGE") == true)
+                ? $"{FileName}: tile-compressed images (ZIMAGE = T) cannot be read yet"
+                : $"{FileName}: no HDU holds a 2-D image";
     }
 
     internal void Fail(string error) => Error = error;
