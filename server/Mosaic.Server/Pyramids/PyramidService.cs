@@ -28,7 +28,30 @@ public sealed class PyramidService : BackgroundService
     {
         _options = options;
         _logger = logger;
-        catalog.Scanned += fields => Track(fields.SelectMany(f => f.Bands).SelectMany(b => b.Hdus));
+        catalog.Scanned += fields =>
+        {
+            var hdus = fields.SelectMany(f => f.Bands).SelectMany(b => b.Hdus).ToList();
+            Forget(hdus);
+            Track(hdus);
+        };
+    }
+
+    /// <summary>
+    /// Drops what belongs to files that changed or went: their queued builds would be wasted work. The pyramids
+    /// are not disposed here, since a request may still be reading one; their handles close when they are collected.
+    /// </summary>
+    private void Forget(IReadOnlyList<FieldHdu> current)
+    {
+        var keys = current.Select(h => h.PyramidKey).ToHashSet(StringComparer.Ordinal);
+        var versions = current.Select(h => h.Band.Version).ToHashSet(StringComparer.Ordinal);
+        foreach (var key in _entries.Keys)
+        {
+            if (keys.Contains(key) || !_entries.TryGetValue(key, out var stale) || stale.State == PyramidState.Building) continue;
+            _entries.TryRemove(key, out _);
+            lock (_queueGate) _queue.Remove(stale);
+        }
+        foreach (var version in _bandSummaries.Keys)
+            if (!versions.Contains(version)) _bandSummaries.TryRemove(version, out _);
     }
 
     private string PyramidRoot => Path.Combine(_options.CacheDirectory, "pyramids");
