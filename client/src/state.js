@@ -2,8 +2,10 @@
 // into the page URL so that reloading or sharing the link opens the same view, display settings included.
 import { EMPTY_DISPLAY, normaliseDisplay, parseDisplayQuery, displayParameters, sameDisplay } from './display-query.js';
 
-const EMPTY = Object.freeze({ field: null, band: null, hdu: null, x: null, y: null, z: null, display: EMPTY_DISPLAY });
+const EMPTY = Object.freeze({ field: null, band: null, hdu: null, x: null, y: null, z: null, grid: false, display: EMPTY_DISPLAY });
 const VIEW_KEYS = Object.freeze(['field', 'band', 'hdu', 'x', 'y', 'z']);
+// Overlays shown over the image: in the URL only while on (`grid=1`).
+const FLAG_KEYS = Object.freeze(['grid']);
 
 // A hundredth of a pixel and of a zoom level is finer than anyone can see, and keeps links short.
 const DECIMALS = 2;
@@ -38,12 +40,13 @@ function normalise(state) {
     x: Number.isFinite(state.x) ? round(state.x) : null,
     y: Number.isFinite(state.y) ? round(state.y) : null,
     z: Number.isFinite(state.z) ? round(state.z) : null,
+    grid: state.grid === true,
     display: normaliseDisplay(state.display ?? EMPTY_DISPLAY),
   });
 }
 
 /**
- * Reads a view from a URL query such as `?field=demo&band=red&hdu=3&x=1024.5&y=2048.5&z=3&stretch=log&a=300`:
+ * Reads a view from a URL query such as `?field=demo&band=red&hdu=3&x=1024.5&y=2048.5&z=3&grid=1&stretch=log&a=300`:
  * the display parameters are those of the tile URLs, except that `masked` is the colour the page paints masked
  * pixels in.
  */
@@ -56,6 +59,7 @@ export function parseViewQuery(search) {
     x: parseNumber(query.get('x')),
     y: parseNumber(query.get('y')),
     z: parseNumber(query.get('z')),
+    grid: query.get('grid')?.trim() === '1',
     display: parseDisplayQuery(query),
   });
 }
@@ -66,13 +70,16 @@ export function formatViewQuery(state) {
   for (const key of VIEW_KEYS) {
     if (state[key] !== null) query.set(key, String(state[key]));
   }
+  for (const key of FLAG_KEYS) {
+    if (state[key] === true) query.set(key, '1');
+  }
   for (const [name, value] of displayParameters(state.display ?? EMPTY_DISPLAY)) query.set(name, value);
   const text = query.toString();
   return text ? `?${text}` : '';
 }
 
 /**
- * The field, band, HDU, centre (FITS pixels, 1-based), zoom and display settings being viewed. Fires `change` with the new state in
+ * The field, band, HDU, centre (FITS pixels, 1-based), zoom, overlays and display settings being viewed. Fires `change` with the new state in
  * `detail` after every update that changed something.
  */
 export class ViewState extends EventTarget {
@@ -98,7 +105,8 @@ export class ViewState extends EventTarget {
   /** Merges `changes` into the state; null clears a key. `display` replaces the display settings as a whole. */
   update(changes) {
     const next = normalise({ ...this.#state, ...changes });
-    if (VIEW_KEYS.every((key) => next[key] === this.#state[key]) && sameDisplay(next.display, this.#state.display)) return;
+    const same = (key) => next[key] === this.#state[key];
+    if (VIEW_KEYS.every(same) && FLAG_KEYS.every(same) && sameDisplay(next.display, this.#state.display)) return;
     this.#state = next;
     this.#mirrorToUrl();
     this.dispatchEvent(new CustomEvent('change', { detail: next }));
