@@ -20,6 +20,9 @@ import { SkySync } from './sky-sync.js';
 import { SkyGrid } from './sky-grid.js';
 import { Compass } from './compass.js';
 import { ScaleBar } from './scale-bar.js';
+import { WHOLE_FIELD, isWholeField, wholeFieldEntry, bandEntries } from './whole-field.js';
+import { ChipOutlines } from './chip-outlines.js';
+import { OutlineToggle } from './outline-toggle.js';
 
 const state = ViewState.fromUrl();
 const imageView = new ImageView(document.getElementById('image-view'));
@@ -40,6 +43,8 @@ const skySync = new SkySync();
 const grid = new SkyGrid(imageView);
 const compass = new Compass(document.getElementById('compass'));
 const scaleBar = new ScaleBar(document.getElementById('scale-bar'));
+const outlines = new ChipOutlines(imageView);
+const outlineToggle = new OutlineToggle(document.getElementById('outline-toggle'), document.getElementById('canvas-note'));
 
 let fields = [];
 let field = null;
@@ -63,8 +68,13 @@ function pickBand(candidate, name) {
     ?? null;
 }
 
+// The whole field when asked for or when nothing is (a band with a canvas opens on it); a chip when one is named,
+// so old links keep opening their chip.
 function pickHdu(band, index, fallback) {
+  const whole = wholeFieldEntry(band);
+  if (whole !== null && (index === null || isWholeField(index))) return whole;
   return band.hdus.find((hdu) => hdu.index === index)
+    ?? whole
     ?? band.hdus.find((hdu) => hdu.index === fallback)
     ?? band.hdus[0];
 }
@@ -81,16 +91,22 @@ function open(candidate, { band: bandName = null, hdu: hduIndex = null, view = n
 
   fieldPicker.setFields(fields, candidate.id);
   bandPicker.setBands(candidate.bands, band.name);
-  hduPicker.setHdus(band.hdus, hdu.index);
+  hduPicker.setHdus(bandEntries(band), hdu.index);
   state.update(source);
+  const wholeField = isWholeField(hdu.index);
+  outlines.show(wholeField ? hdu.chips : []);
+  outlineToggle.setCanvas(wholeField ? hdu : null);
 
   shown = { ...source, ready: hdu.pyramid?.state === 'ready', sky: hdu.sky ?? null };
   const display = state.current.display;
   showSky(source, hdu);
-  imageView.show({ tileUrl: tileUrlTemplate(source, display), width: hdu.width, height: hdu.height, maxZoom: hdu.maxZoom }, view);
+  const maskShapes = wholeField ? hdu.chips.map((chip) => chip.outline) : null;
+  imageView.show({ tileUrl: tileUrlTemplate(source, display), width: hdu.width, height: hdu.height, maxZoom: hdu.maxZoom, maskShapes }, view);
   panel.limits.fitEnabled = true;
   sync.update(source, display);
-  readout.setSource({ ...source, hduName: hdu.name, width: hdu.width, height: hdu.height, sky: hdu.sky ?? null, skyError: hdu.skyError ?? null });
+  readout.setSource({
+    ...source, hduName: hdu.name, width: hdu.width, height: hdu.height, sky: hdu.sky ?? null, skyError: hdu.skyError ?? null, wholeField,
+  });
   progress.show(hdu.name, hdu.pyramid);
   watchPreparation(band);
   refreshSky();
@@ -100,7 +116,8 @@ function open(candidate, { band: bandName = null, hdu: hduIndex = null, view = n
 function showSky(source, hdu) {
   const hasSky = hdu.sky !== null && hdu.sky !== undefined;
   if (mark !== null && !(mark.field === source.field && mark.band === source.band && mark.hdu === source.hdu)) clearMark();
-  gotoBox.setSource({ field: source.field, band: source.band });
+  // On the whole field the server finds the chip and says where the position is on the field's own grid.
+  gotoBox.setSource({ field: source.field, band: source.band, hdu: isWholeField(source.hdu) ? WHOLE_FIELD : null });
   gridToggle.setAvailable(hasSky, hdu.skyError);
   pixelScale = hasSky && Number.isFinite(hdu.sky.pixelScale) ? hdu.sky.pixelScale : null;
   skySync.setSource(source, hasSky);
@@ -135,6 +152,12 @@ function setGrid(on) {
   state.update({ grid: on });
 }
 
+function setOutlines(on) {
+  outlines.on = on;
+  outlineToggle.pressed = on;
+  state.update({ outlines: on });
+}
+
 function clearMark() {
   if (mark === null) return;
   imageView.removeOverlay(mark.marker);
@@ -142,10 +165,33 @@ function clearMark() {
   gotoBox.marked = false;
 }
 
+function placeMark(x, y, text, target) {
+  const marker = createPositionMarker(x, y, text);
+  imageView.addOverlay(marker);
+  mark = { marker, ...target };
+  gotoBox.marked = true;
+}
+
+// On the whole field the view moves to where the position is on it, whichever chip holds it.
+function goToOnWholeField(answer) {
+  const at = answer.canvas;
+  if (!at || !Number.isFinite(at.x) || !Number.isFinite(at.y)) {
+    message.show('Go to: the server did not say where that position is on the whole field.', 'goto');
+    return;
+  }
+  clearMark();
+  imageView.centreOn(at.x, at.y);
+  placeMark(at.x, at.y, answer.text, { field: shown.field, band: shown.band, hdu: WHOLE_FIELD });
+}
+
 // The go-to box found the position: on another chip that chip opens, centred there; the mark goes on it.
 function goTo(answer) {
   message.clear('goto');
   if (shown === null || field === null) return;
+  if (isWholeField(shown.hdu)) {
+    goToOnWholeField(answer);
+    return;
+  }
   const target = { field: shown.field, band: shown.band, hdu: answer.hdu };
   clearMark();
   if (answer.hdu !== shown.hdu) {
@@ -157,10 +203,7 @@ function goTo(answer) {
   } else {
     imageView.centreOn(answer.atX, answer.atY);
   }
-  const marker = createPositionMarker(answer.atX, answer.atY, answer.text);
-  imageView.addOverlay(marker);
-  mark = { marker, ...target };
-  gotoBox.marked = true;
+  placeMark(answer.atX, answer.atY, answer.text, target);
 }
 
 // Each palette's own masked colour (from /api/palettes): a colour none of its values can pass for. Used while
@@ -220,14 +263,17 @@ async function loadPalettes() {
 }
 
 function watchPreparation(band) {
-  if (!band.hdus.some(isPreparing)) {
+  if (!bandEntries(band).some(isPreparing)) {
     watcher.stop();
     return;
   }
   watcher.watch(field.id, {
     onField: onFieldPolled,
     onError: (error) => message.show(`Cannot reach the server (${error.message}); trying again.`, 'connection'),
-    isDone: (polled) => !(polled.bands.find((b) => b.name === shown?.band)?.hdus.some(isPreparing) ?? false),
+    isDone: (polled) => {
+      const band = polled.bands.find((b) => b.name === shown?.band);
+      return !(band && bandEntries(band).some(isPreparing));
+    },
   });
 }
 
@@ -237,9 +283,9 @@ function onFieldPolled(polled) {
   field = polled;
   fields = fields.map((known) => (known.id === polled.id ? polled : known));
   const band = polled.bands.find((b) => b.name === shown.band);
-  const hdu = band?.hdus.find((h) => h.index === shown.hdu);
+  const hdu = band ? bandEntries(band).find((h) => h.index === shown.hdu) : undefined;
   if (!band || !hdu) return;
-  hduPicker.setHdus(band.hdus, hdu.index);
+  hduPicker.setHdus(bandEntries(band), hdu.index);
   progress.show(hdu.name, hdu.pyramid);
   const ready = hdu.pyramid?.state === 'ready';
   if (ready && !shown.ready) imageView.refreshTiles();
@@ -285,6 +331,7 @@ function wireEvents() {
     message.clear('goto');
   });
   gridToggle.addEventListener('toggle', (event) => setGrid(event.detail));
+  outlineToggle.addEventListener('toggle', (event) => setOutlines(event.detail));
   skySync.addEventListener('sky', (event) => onSky(event.detail));
   skySync.addEventListener('clear', (event) => onSkyCleared(event.detail));
   imageView.addEventListener('pointer', (event) => readout.pointAt(event.detail));
@@ -295,6 +342,7 @@ function wireEvents() {
 async function start() {
   wireEvents();
   setGrid(state.current.grid);
+  setOutlines(state.current.outlines);
   panel.limits.fitEnabled = false;
   panel.show(state.current.display, null);
   paintMask(state.current.display);
