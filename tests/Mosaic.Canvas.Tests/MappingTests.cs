@@ -11,6 +11,7 @@ public sealed class MappingTests(ITestOutputHelper output)
     private const double Goal = 0.01;
 
     [Theory]
+    [InlineData(0.05)]  // a fortieth of a pixel: the coarsest grid, 64 px
     [InlineData(1.0)]   // about half a pixel of distortion at the chip corners
     [InlineData(6.0)]   // about three pixels
     public void Interpolated_chip_positions_stay_within_a_hundredth_of_a_pixel_of_the_exact_chain(double sip)

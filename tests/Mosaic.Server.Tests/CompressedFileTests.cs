@@ -35,15 +35,15 @@ fits.HDUList([fits.PrimaryHDU(), fits.CompImageHDU(np.arange(64 * 64, dtype=np.i
     }
 
     [Fact]
-    public async Task A_file_compressed_with_a_codec_the_reader_lacks_says_which()
+    public async Task A_compressed_file_the_reader_cannot_decode_as_asked_says_why()
     {
         var dataDir = Path.Combine(data.Root, $"compressed-{Guid.NewGuid():N}");
         Directory.CreateDirectory(dataDir);
-        // HCOMPRESS_1 (FITS 4.0 section 10.4.4), written by astropy.io.fits.
+        // HCOMPRESS_1 with SMOOTH = 1 (FITS 4.0 section 10.4.4: smooth while decompressing), written by astropy.io.fits.
         DebianPython.RunCode("""
 import sys, numpy as np
 from astropy.io import fits
-fits.HDUList([fits.PrimaryHDU(), fits.CompImageHDU(np.arange(64 * 64, dtype=np.int16).reshape(64, 64), compression_type="HCOMPRESS_1")]).writeto(sys.argv[1])
+fits.HDUList([fits.PrimaryHDU(), fits.CompImageHDU(np.arange(64 * 64, dtype=np.int16).reshape(64, 64), compression_type="HCOMPRESS_1", hcomp_smooth=1)]).writeto(sys.argv[1])
 """, [Path.Combine(dataDir, "squeezed.fits.fz")]);
 
         using var factory = new MosaicFactory(dataDir, data.NewCacheDirectory());
@@ -51,5 +51,6 @@ fits.HDUList([fits.PrimaryHDU(), fits.CompImageHDU(np.arange(64 * 64, dtype=np.i
         var field = (await client.GetFromJsonAsync<JsonElement>("/api/fields")).EnumerateArray()
             .Single(f => f.GetProperty("id").GetString() == "squeezed");
         Assert.Contains("HCOMPRESS_1", field.GetProperty("error").GetString());
+        Assert.Contains("SMOOTH", field.GetProperty("error").GetString());
     }
 }

@@ -1,4 +1,6 @@
 using System.Buffers;
+using System.Runtime.CompilerServices;
+using System.Runtime.InteropServices;
 using Mosaic.Canvas.Mapping;
 
 namespace Mosaic.Canvas.Resampling;
@@ -118,16 +120,17 @@ internal static class BandResampler
     {
         var grid = chip.Grid;
         var G = grid.Spacing;
-        int n = ce - cs + 1, k0 = cs / G, k1 = ce / G + 1, nodes = k1 - k0 + 1;
-        var scratch = ArrayPool<double>.Shared.Rent(2 * n + 2 * nodes);
+        int k0 = cs / G, k1 = ce / G + 1, nodes = k1 - k0 + 1;
+        var scratch = ArrayPool<double>.Shared.Rent(2 * nodes);
         try
         {
-            var xs = scratch.AsSpan(0, n);
-            var ys = scratch.AsSpan(n, n);
-            var nodeX = scratch.AsSpan(2 * n, nodes);
-            var nodeY = scratch.AsSpan(2 * n + nodes, nodes);
+            var nodeX = scratch.AsSpan(0, nodes);
+            var nodeY = scratch.AsSpan(nodes, nodes);
             int width = chip.Plane.Width, height = chip.Plane.Height;
-            double centreX = chip.Centre.X, centreY = chip.Centre.Y;
+            double centreX = chip.Centre.X, centreY = chip.Centre.Y, uEnd = width - 0.5, vEnd = height - 0.5;
+            var values = rect.Values;
+            ref var origin = ref MemoryMarshal.GetReference(values);
+            int rx0 = rect.X0, ry0 = rect.Y0, rx1 = rect.X1, ry1 = rect.Y1, rw = rect.Width;
             for (var r = rs; r <= re; r++)
             {
                 var j = r / G;
@@ -140,7 +143,10 @@ internal static class BandResampler
                     nodeX[k] = a[at] + fy * (b[at] - a[at]);
                     nodeY[k] = a[at + 1] + fy * (b[at + 1] - a[at + 1]);
                 }
-                // Positions along the row: a linear ramp per cell between its two nodes.
+                var outRow = destination.Slice((r - box.Y0) * box.Columns, box.Columns);
+                var bestRow = best is null ? default : best.AsSpan((r - box.Y0) * box.Columns, box.Columns);
+                double canvasY = r + 1;
+                // Per cell the position walks linearly between its two nodes: start + step * m for the m-th pixel.
                 for (var c = cs; c <= ce;)
                 {
                     var k = c / G;
@@ -148,33 +154,54 @@ internal static class BandResampler
                     double t0 = (double)(c - k * G) / G;
                     int kk = k - k0;
                     double sx = (nodeX[kk + 1] - nodeX[kk]) / G, sy = (nodeY[kk + 1] - nodeY[kk]) / G;
-                    Ramp.Fill(xs.Slice(c - cs, end - c + 1), nodeX[kk] + t0 * G * sx, sx);
-                    Ramp.Fill(ys.Slice(c - cs, end - c + 1), nodeY[kk] + t0 * G * sy, sy);
+                    double startX = nodeX[kk] + t0 * G * sx, startY = nodeY[kk] + t0 * G * sy;
+                    int lo = 0, hi = end - c + 1;
+                    // Gap and edge pixels are skipped without work; a cell with a NaN node keeps every pixel for the exact chain.
+                    if (double.IsFinite(startX) && double.IsFinite(sx) && double.IsFinite(startY) && double.IsFinite(sy))
+                    {
+                        StepWindow.Narrow(startX, sx, 0.5, uEnd + 1, ref lo, ref hi);
+                        StepWindow.Narrow(startY, sy, 0.5, vEnd + 1, ref lo, ref hi);
+                    }
+                    for (var m = lo; m < hi; m++)
+                    {
+                        double u = startX + sx * m - 1, v = startY + sy * m - 1;
+                        var column = c + m;
+                        if (!(u >= -0.5 && u < uEnd && v >= -0.5 && v < vEnd))
+                        {
+                            // NaN fails every comparison: a grid node without a sky solution, so this pixel by the exact chain.
+                            if (!double.IsNaN(u) && !double.IsNaN(v)) continue;
+                            if (!grid.Chain.TryCanvasToChip(column + 1, canvasY, out u, out v)) continue;
+                            u -= 1; v -= 1;
+                            if (!(u >= -0.5 && u < uEnd && v >= -0.5 && v < vEnd)) continue;
+                        }
+                        var o = column - box.X0;
+                        if (best is not null)
+                        {
+                            double dx = column + 1 - centreX, dy = canvasY - centreY;
+                            var d = dx * dx + dy * dy;
+                            if (d >= bestRow[o]) continue;
+                            bestRow[o] = d;
+                        }
+                        // floor for u >= -1, without a call.
+                        int pi = (int)(u + 1) - 1, pj = (int)(v + 1) - 1;
+                        if ((uint)(pi - rx0) < (uint)(rx1 - rx0) && (uint)(pj - ry0) < (uint)(ry1 - ry0))
+                        {
+                            // The four neighbours are in the rectangle (so inside the chip), which the test above
+                            // proves, so no bounds checks: bilinear, finite exactly when all four are (a NaN or
+                            // infinity survives even a zero weight).
+                            ref var p = ref Unsafe.Add(ref origin, (pj - ry0) * rw + (pi - rx0));
+                            ref var q = ref Unsafe.Add(ref p, rw);
+                            double wx = u - pi, wy = v - pj;
+                            var value = (1 - wy) * ((1 - wx) * p + wx * Unsafe.Add(ref p, 1)) + wy * ((1 - wx) * q + wx * Unsafe.Add(ref q, 1));
+                            if (double.IsFinite(value))
+                            {
+                                outRow[o] = (float)value;
+                                continue;
+                            }
+                        }
+                        outRow[o] = Sample(chip, rect, u, v, width, height);
+                    }
                     c = end + 1;
-                }
-                var outRow = destination.Slice((r - box.Y0) * box.Columns, box.Columns);
-                var bestRow = best is null ? default : best.AsSpan((r - box.Y0) * box.Columns, box.Columns);
-                double canvasY = r + 1;
-                for (var m = 0; m < n; m++)
-                {
-                    double u = xs[m] - 1, v = ys[m] - 1;
-                    var canvasX = cs + m + 1;
-                    if (double.IsNaN(u) || double.IsNaN(v))
-                    {
-                        // A grid node without a sky solution: this pixel by the exact chain instead.
-                        if (!grid.Chain.TryCanvasToChip(canvasX, canvasY, out u, out v)) continue;
-                        u -= 1; v -= 1;
-                    }
-                    if (!(u >= -0.5 && u < width - 0.5 && v >= -0.5 && v < height - 0.5)) continue;
-                    var o = cs + m - box.X0;
-                    if (best is not null)
-                    {
-                        double dx = canvasX - centreX, dy = canvasY - centreY;
-                        var d = dx * dx + dy * dy;
-                        if (d >= bestRow[o]) continue;
-                        bestRow[o] = d;
-                    }
-                    outRow[o] = Sample(chip, rect, u, v, width, height);
                 }
             }
         }

@@ -18,6 +18,9 @@ internal sealed class CompressedImageLayout
     public required string CodecName { get; init; }
     public required int BlockSize { get; init; }
     public required int BytePix { get; init; }
+
+    /// <summary>HCOMPRESS_1 SMOOTH (section 10.4.4): smooth the image while decompressing.</summary>
+    public bool Smooth { get; init; }
     public required QuantizeMethod Quantize { get; init; }
     public required int DitherSeed { get; init; }
     public required long? NullValue { get; init; }
@@ -116,7 +119,7 @@ internal sealed class CompressedImageLayout
                 $"unknown ZCMPTYPE = '{codecName}'; known are RICE_1, GZIP_1, GZIP_2, PLIO_1, HCOMPRESS_1 and NOCOMPRESS (section 10.4)"),
         };
 
-        var (blockSize, bytePix) = RiceParameters(header, zBitPix, context);
+        var (blockSize, bytePix, smooth) = CodecParameters(header, context);
 
         var columns = TableColumns.Parse(header, rowBytes, context);
         TableColumn? Column(string name) => columns.FirstOrDefault(c => string.Equals(c.Name, name, StringComparison.OrdinalIgnoreCase));
@@ -165,7 +168,7 @@ internal sealed class CompressedImageLayout
         return new CompressedImageLayout
         {
             ZBitPix = (int)zBitPix, Axes = axes, Tile = tile, Codec = codec, CodecName = codecName,
-            BlockSize = blockSize, BytePix = bytePix, Quantize = quantize, DitherSeed = seed, NullValue = nullValue,
+            BlockSize = blockSize, BytePix = bytePix, Smooth = smooth, Quantize = quantize, DitherSeed = seed, NullValue = nullValue,
             ScaleKeyword = scaleKeyword, ZeroKeyword = zeroKeyword,
             CompressedData = compressed, GzipData = gzip, UncompressedData = uncompressed,
             ScaleColumn = scale, ZeroColumn = zero, NullColumn = nullColumn,
@@ -174,11 +177,12 @@ internal sealed class CompressedImageLayout
         };
     }
 
-    /// <summary>ZNAMEi / ZVALi pairs (section 10.1.1): BLOCKSIZE and BYTEPIX of RICE_1 (section 10.4.1); others are not needed to decode.</summary>
-    private static (int BlockSize, int BytePix) RiceParameters(Header header, long zBitPix, in ParseContext context)
+    /// <summary>ZNAMEi / ZVALi pairs (section 10.1.1): BLOCKSIZE and BYTEPIX of RICE_1 (section 10.4.1), SMOOTH of HCOMPRESS_1 (section 10.4.4); others are not needed to decode.</summary>
+    private static (int BlockSize, int BytePix, bool Smooth) CodecParameters(Header header, in ParseContext context)
     {
         // Section 10.4.1: BLOCKSIZE defaults to 32 and BYTEPIX to 4.
         long blockSize = 32, bytePix = 4;
+        var smooth = false;
         for (var i = 1; i <= 999; i++)
         {
             var name = header.GetString($"ZNAME{i}")?.Trim();
@@ -186,12 +190,13 @@ internal sealed class CompressedImageLayout
             var keyword = $"ZVAL{i}";
             if (name.Equals("BLOCKSIZE", StringComparison.OrdinalIgnoreCase)) blockSize = Integer(header, keyword, context);
             else if (name.Equals("BYTEPIX", StringComparison.OrdinalIgnoreCase)) bytePix = Integer(header, keyword, context);
+            else if (name.Equals("SMOOTH", StringComparison.OrdinalIgnoreCase)) smooth = Integer(header, keyword, context) != 0;
         }
         if (blockSize < 1 || blockSize > 1 << 20)
             throw context.Error("ZVAL1", $"the RICE_1 BLOCKSIZE = {blockSize} must be a positive pixel count (section 10.4.1)");
         if (bytePix is not (1 or 2 or 4 or 8))
             throw context.Error("ZVAL2", $"the RICE_1 BYTEPIX = {bytePix} must be 1, 2, 4 or 8 (section 10.4.1)");
-        return ((int)blockSize, (int)bytePix);
+        return ((int)blockSize, (int)bytePix, smooth);
     }
 
     private static QuantizeMethod QuantizeOf(Header header, long zBitPix, bool hasScale, in ParseContext context)

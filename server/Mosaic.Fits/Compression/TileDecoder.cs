@@ -22,7 +22,7 @@ internal sealed class TileDecoder(SafeFileHandle handle, CompressedImageLayout l
         var tilePixels = checked((int)(planePixels * layout.PlanesPerTile));
         var output = new byte[planePixels * SampleBytes];
 
-        if (!entry.Compressed.IsEmpty) DecodeCompressed(entry, tilePixels, planePixels, output);
+        if (!entry.Compressed.IsEmpty) DecodeCompressed(entry, width, height, tilePixels, planePixels, output);
         else if (!entry.Gzip.IsEmpty)
         {
             // A tile that could not be quantised keeps its floating-point values, gzip-compressed (section 10.4.2).
@@ -49,7 +49,7 @@ internal sealed class TileDecoder(SafeFileHandle handle, CompressedImageLayout l
         return new DecodedTile(output, width, height, new SampleScaling(layout.ZBitPix, bScale, bZero, blank));
     }
 
-    private void DecodeCompressed(in TileEntry entry, int tilePixels, int planePixels, byte[] output)
+    private void DecodeCompressed(in TileEntry entry, int width, int height, int tilePixels, int planePixels, byte[] output)
     {
         // Integers out of the codec: the image's own samples, or quantised values (4 bytes) of a floating-point image.
         var lossless = !layout.IsQuantized;
@@ -128,21 +128,52 @@ internal sealed class TileDecoder(SafeFileHandle handle, CompressedImageLayout l
                 }
                 break;
             }
+            case TileCodec.HCompress:
+            {
+                if (layout.PlanesPerTile != 1) throw new TileDataException("HCOMPRESS_1 tiles are 2-D, but ZTILE3 and up make this tile deeper");
+                var values = ArrayPool<long>.Shared.Rent(tilePixels);
+                try
+                {
+                    var input = ReadPooled(entry.Compressed, tilePixels * 8L, out var length);
+                    try { HCompressDecoder.Decode(input.AsSpan(0, length), height, width, values.AsSpan(0, tilePixels)); }
+                    finally { ArrayPool<byte>.Shared.Return(input); }
+                    var ints = ArrayPool<int>.Shared.Rent(planePixels);
+                    try
+                    {
+                        var plane = ints.AsSpan(0, planePixels);
+                        for (var i = 0; i < plane.Length; i++) plane[i] = (int)Math.Clamp(values[i], int.MinValue, int.MaxValue);
+                        if (lossless && layout.ZBitPix == 64) StoreLongs(values.AsSpan(0, planePixels), output);
+                        else if (lossless) StoreIntegers(plane, output);
+                        else Dequantize(plane, entry, output);
+                    }
+                    finally { ArrayPool<int>.Shared.Return(ints); }
+                }
+                finally { ArrayPool<long>.Shared.Return(values); }
+                break;
+            }
             default:
                 throw new NotSupportedException($"tile compression {layout.CodecName} is not supported by this reader");
         }
     }
 
-    /// <summary>Codec integers to big-endian samples of ZBITPIX (8-bit images are unsigned, section 5.2.1).</summary>
+    private static void StoreLongs(ReadOnlySpan<long> values, Span<byte> output)
+    {
+        for (var i = 0; i < values.Length; i++) BinaryPrimitives.WriteInt64BigEndian(output[(8 * i)..], values[i]);
+    }
+
+    /// <summary>
+    /// Codec integers to big-endian samples of ZBITPIX (8-bit images are unsigned, section 5.2.1). Values outside the
+    /// type (lossy HCOMPRESS_1 can overshoot) are clipped to its range, as the reference library's conversion does.
+    /// </summary>
     private void StoreIntegers(ReadOnlySpan<int> values, Span<byte> output)
     {
         switch (layout.ZBitPix)
         {
             case 8:
-                for (var i = 0; i < values.Length; i++) output[i] = (byte)values[i];
+                for (var i = 0; i < values.Length; i++) output[i] = (byte)Math.Clamp(values[i], byte.MinValue, byte.MaxValue);
                 break;
             case 16:
-                for (var i = 0; i < values.Length; i++) BinaryPrimitives.WriteInt16BigEndian(output[(2 * i)..], (short)values[i]);
+                for (var i = 0; i < values.Length; i++) BinaryPrimitives.WriteInt16BigEndian(output[(2 * i)..], (short)Math.Clamp(values[i], short.MinValue, short.MaxValue));
                 break;
             case 32:
                 for (var i = 0; i < values.Length; i++) BinaryPrimitives.WriteInt32BigEndian(output[(4 * i)..], values[i]);

@@ -15,10 +15,10 @@ internal static class CompressedImageReader
         if (layout is null) return new Hdu(index, stored, headerOffset, dataOffset, table.DataLength, null);
         var restored = ImageHeaderRestorer.Restore(stored, layout);
 
-        if (layout.Codec is TileCodec.HCompress)
+        if (layout.Codec is TileCodec.HCompress && layout.Smooth)
         {
             var problem =
-                $"{Path.GetFileName(context.FilePath)}, HDU {index}: tile compression {layout.CodecName} is not supported by this reader (RICE_1, GZIP_1, GZIP_2, PLIO_1 and NOCOMPRESS are)";
+                $"{Path.GetFileName(context.FilePath)}, HDU {index}: {layout.CodecName} with SMOOTH set asks for smoothing on decompression, which this reader does not do";
             return new Hdu(index, restored, headerOffset, dataOffset, table.DataLength, null, stored, problem);
         }
 

@@ -11,8 +11,9 @@ internal sealed class LevelCascade : IDisposable
     private readonly float[][] _pending;
     private readonly float[][] _rows;
     private readonly float[] _missingRow;
+    private readonly LevelTileWriter? _native;
 
-    public LevelCascade(PyramidGeometry geometry, string folder)
+    public LevelCascade(PyramidGeometry geometry, string folder, bool storeNative)
     {
         _geometry = geometry;
         var levels = geometry.MaxZoom;
@@ -29,6 +30,8 @@ internal sealed class LevelCascade : IDisposable
                 _pending[z] = new float[geometry.LevelWidth(z)];
                 _rows[z] = new float[geometry.LevelWidth(z)];
             }
+            if (storeNative)
+                _native = new LevelTileWriter(Path.Combine(folder, PyramidLayout.LevelFile(geometry.MaxZoom)), geometry.Width, geometry.Height);
         }
         catch
         {
@@ -40,9 +43,14 @@ internal sealed class LevelCascade : IDisposable
     /// <summary>Native stored rows [y, y + rowCount), row y first. A strip must not split a block: its first row is row 0 or the lower row of a block.</summary>
     public void AddNativeRows(int y, int rowCount, ReadOnlySpan<float> rows)
     {
+        int width = _geometry.Width, height = _geometry.Height;
+        if (_native is not null)
+        {
+            // Stored rows arrive bottom-up, which is the descending top-anchored order the writer takes.
+            for (var i = 0; i < rowCount; i++) _native.WriteRow(height - 1 - (y + i), rows.Slice(i * width, width));
+        }
         var top = _geometry.MaxZoom - 1;
         if (top < 0) return;
-        int width = _geometry.Width, height = _geometry.Height;
         for (var i = 0; i < rowCount;)
         {
             var fromTop = height - 1 - (y + i);
@@ -67,11 +75,13 @@ internal sealed class LevelCascade : IDisposable
     public void Complete()
     {
         foreach (var writer in _writers) writer.Complete();
+        _native?.Complete();
     }
 
     public void Dispose()
     {
         foreach (var writer in _writers) writer?.Dispose();
+        _native?.Dispose();
     }
 
     private void AddLevelRow(int z, int row, float[] values)

@@ -6,19 +6,20 @@ using Mosaic.Imaging.Statistics;
 namespace Mosaic.Imaging.Pyramids;
 
 /// <summary>
-/// A built pyramid: the native level read from the source plane, reduced levels from the cache folder, one
-/// positional read per tile. Level coordinates are 0-based and top-anchored (row 0 is the top of the image).
-/// Thread-safe.
+/// A built pyramid: reduced levels from the cache folder, one positional read per tile; the native level from its
+/// own level file where the build stored it, else from the source plane. Level coordinates are 0-based and
+/// top-anchored (row 0 is the top of the image). Thread-safe.
 /// </summary>
 public sealed class Pyramid : IDisposable
 {
     private const int T = PyramidGeometry.TileSize;
 
-    private readonly ImagePlane _native;
+    /// <summary>Null where the native level is stored: then _levels holds it too, at index MaxZoom.</summary>
+    private readonly ImagePlane? _native;
     private readonly SafeFileHandle[] _levels;
     private volatile bool _disposed;
 
-    private Pyramid(PyramidGeometry geometry, ValueHistogram histogram, ImagePlane native, SafeFileHandle[] levels)
+    private Pyramid(PyramidGeometry geometry, ValueHistogram histogram, ImagePlane? native, SafeFileHandle[] levels)
     {
         Geometry = geometry;
         Histogram = histogram;
@@ -35,6 +36,9 @@ public sealed class Pyramid : IDisposable
     /// <summary>Field-wide statistics of the native pixels, from <see cref="Histogram"/>.</summary>
     public BandStatistics Statistics { get; }
 
+    /// <summary>True where native tiles and regions come from the cache folder, not the source plane (<see cref="PyramidBuildOptions.StoreNative"/>).</summary>
+    public bool StoresNative => _native is null;
+
     /// <summary>Opens a pyramid built by <see cref="PyramidBuilder"/>; InvalidDataException where the folder holds no complete build for this plane.</summary>
     public static Pyramid Open(string directory, ImagePlane native)
     {
@@ -42,17 +46,40 @@ public sealed class Pyramid : IDisposable
         ArgumentNullException.ThrowIfNull(native);
         PyramidLayout.EnsureLittleEndian();
         var manifest = PyramidManifest.Read(Path.Combine(directory, PyramidLayout.ManifestFile));
-        var geometry = new PyramidGeometry(native.Width, native.Height);
-        if (manifest.Width != native.Width || manifest.Height != native.Height || manifest.MaxZoom != geometry.MaxZoom)
+        if (manifest.Width != native.Width || manifest.Height != native.Height)
             throw new InvalidDataException($"pyramid in {directory} is for a {manifest.Width}x{manifest.Height} image; the plane is {native.Width}x{native.Height}");
         if (manifest.SourceBitPix != native.BitPix)
             throw new InvalidDataException($"pyramid in {directory} was built from BITPIX {manifest.SourceBitPix}; the plane has BITPIX {native.BitPix}");
+        return Open(directory, manifest, manifest.NativeStored ? null : native);
+    }
+
+    /// <summary>
+    /// Opens a pyramid built with <see cref="PyramidBuildOptions.StoreNative"/> without its source, which may be gone;
+    /// InvalidDataException where the folder holds no complete build or the build did not store the native level.
+    /// </summary>
+    public static Pyramid Open(string directory)
+    {
+        ArgumentException.ThrowIfNullOrWhiteSpace(directory);
+        PyramidLayout.EnsureLittleEndian();
+        var manifest = PyramidManifest.Read(Path.Combine(directory, PyramidLayout.ManifestFile));
+        if (!manifest.NativeStored)
+            throw new InvalidDataException($"pyramid in {directory} reads its native level from the source image; open it with that image");
+        return Open(directory, manifest, native: null);
+    }
+
+    private static Pyramid Open(string directory, PyramidManifest manifest, ImagePlane? native)
+    {
+        if (manifest.Width <= 0 || manifest.Height <= 0)
+            throw new InvalidDataException($"pyramid in {directory} claims a {manifest.Width}x{manifest.Height} image");
+        var geometry = new PyramidGeometry(manifest.Width, manifest.Height);
+        if (manifest.MaxZoom != geometry.MaxZoom)
+            throw new InvalidDataException($"pyramid in {directory} has zoom levels 0..{manifest.MaxZoom}; a {manifest.Width}x{manifest.Height} image needs 0..{geometry.MaxZoom}");
 
         var histogram = LoadHistogram(Path.Combine(directory, PyramidLayout.HistogramFile));
-        if (histogram.FiniteCount + histogram.MaskedCount != (long)native.Width * native.Height)
-            throw new InvalidDataException($"pyramid histogram in {directory} counts {histogram.FiniteCount + histogram.MaskedCount} pixels; the plane has {(long)native.Width * native.Height}");
+        if (histogram.FiniteCount + histogram.MaskedCount != (long)geometry.Width * geometry.Height)
+            throw new InvalidDataException($"pyramid histogram in {directory} counts {histogram.FiniteCount + histogram.MaskedCount} pixels; the image has {(long)geometry.Width * geometry.Height}");
 
-        var levels = new SafeFileHandle[geometry.MaxZoom];
+        var levels = new SafeFileHandle[native is null ? geometry.MaxZoom + 1 : geometry.MaxZoom];
         try
         {
             for (var z = 0; z < levels.Length; z++) levels[z] = OpenLevel(directory, geometry, z);
@@ -74,7 +101,7 @@ public sealed class Pyramid : IDisposable
         if (destination.Length < PyramidLayout.TilePixels)
             throw new ArgumentException($"a tile needs {PyramidLayout.TilePixels} floats; destination holds {destination.Length}", nameof(destination));
         var tile = destination[..PyramidLayout.TilePixels];
-        if (z == Geometry.MaxZoom) ReadNative(x * T, y * T, T, T, tile);
+        if (z == Geometry.MaxZoom && _native is not null) ReadNative(_native, x * T, y * T, T, T, tile);
         else ReadExactly(_levels[z], MemoryMarshal.AsBytes(tile), PyramidLayout.TileOffset(Geometry, z, x, y));
     }
 
@@ -90,9 +117,9 @@ public sealed class Pyramid : IDisposable
         if (destination.Length < (long)width * height)
             throw new ArgumentException($"a {width}x{height} region needs {(long)width * height} floats; destination holds {destination.Length}", nameof(destination));
         var region = destination[..(width * height)];
-        if (z == Geometry.MaxZoom)
+        if (z == Geometry.MaxZoom && _native is not null)
         {
-            ReadNative(left, top, width, height, region);
+            ReadNative(_native, left, top, width, height, region);
             return;
         }
         int levelWidth = Geometry.LevelWidth(z), levelHeight = Geometry.LevelHeight(z);
@@ -135,7 +162,7 @@ public sealed class Pyramid : IDisposable
     }
 
     /// <summary>Native rows come from the plane bottom-up; the region is top-down.</summary>
-    private void ReadNative(int left, int top, int width, int height, Span<float> region)
+    private void ReadNative(ImagePlane native, int left, int top, int width, int height, Span<float> region)
     {
         int imageWidth = Geometry.Width, imageHeight = Geometry.Height;
         int c0 = Math.Clamp(left, 0, imageWidth), c1 = (int)Math.Clamp((long)left + width, 0, imageWidth);
@@ -150,7 +177,7 @@ public sealed class Pyramid : IDisposable
             }
             row[..(c0 - left)].Fill(float.NaN);
             row[(c1 - left)..].Fill(float.NaN);
-            _native.ReadRow(imageHeight - 1 - (int)r, c0, row[(c0 - left)..(c1 - left)]);
+            native.ReadRow(imageHeight - 1 - (int)r, c0, row[(c0 - left)..(c1 - left)]);
         }
     }
 

@@ -11,15 +11,20 @@ public static class PyramidBuilder
     /// partial build is never used; an existing folder there is replaced. Progress goes from 0 to 1. On failure or
     /// cancellation the temporary folder is deleted and the exception (OperationCanceledException) propagates.
     /// </summary>
-    public static void Build(ImagePlane plane, string directory, IProgress<double>? progress, CancellationToken cancellationToken)
+    public static void Build(ImagePlane plane, string directory, IProgress<double>? progress, CancellationToken cancellationToken) =>
+        Build(plane, directory, PyramidBuildOptions.Default, progress, cancellationToken);
+
+    /// <summary>As <see cref="Build(ImagePlane, string, IProgress{double}?, CancellationToken)"/>, with the native level stored too where <paramref name="options"/> asks.</summary>
+    public static void Build(ImagePlane plane, string directory, PyramidBuildOptions options, IProgress<double>? progress, CancellationToken cancellationToken)
     {
         ArgumentNullException.ThrowIfNull(plane);
-        Build(new PlaneRowSource(plane), plane.BitPix, directory, progress, cancellationToken);
+        Build(new PlaneRowSource(plane), plane.BitPix, directory, options, progress, cancellationToken);
     }
 
-    internal static void Build(IRowSource source, int sourceBitPix, string directory, IProgress<double>? progress, CancellationToken cancellationToken)
+    internal static void Build(IRowSource source, int sourceBitPix, string directory, PyramidBuildOptions options, IProgress<double>? progress, CancellationToken cancellationToken)
     {
         ArgumentNullException.ThrowIfNull(source);
+        ArgumentNullException.ThrowIfNull(options);
         ArgumentException.ThrowIfNullOrWhiteSpace(directory);
         var target = Path.TrimEndingDirectorySeparator(Path.GetFullPath(directory));
         var parent = Path.GetDirectoryName(target) ?? throw new ArgumentException($"{directory} has no parent folder to build beside", nameof(directory));
@@ -30,12 +35,12 @@ public static class PyramidBuilder
         try
         {
             progress?.Report(0);
-            var histogram = PyramidPass.Run(source, temporary, progress, cancellationToken);
+            var histogram = PyramidPass.Run(source, temporary, options.StoreNative, progress, cancellationToken);
             using (var stream = new FileStream(Path.Combine(temporary, PyramidLayout.HistogramFile), FileMode.CreateNew, FileAccess.Write))
                 histogram.Save(stream);
             var geometry = new PyramidGeometry(source.Width, source.Height);
             new PyramidManifest(PyramidManifest.CurrentVersion, source.Width, source.Height, geometry.MaxZoom, sourceBitPix,
-                BandStatistics.From(histogram)).Write(Path.Combine(temporary, PyramidLayout.ManifestFile));
+                BandStatistics.From(histogram), options.StoreNative).Write(Path.Combine(temporary, PyramidLayout.ManifestFile));
             cancellationToken.ThrowIfCancellationRequested();
             MoveIntoPlace(temporary, target);
         }

@@ -3,8 +3,12 @@ using Mosaic.Imaging.Statistics;
 
 namespace Mosaic.Imaging.Pyramids;
 
-/// <summary>The small JSON file written last into a pyramid folder: its presence and contents mark a complete build.</summary>
-internal sealed record PyramidManifest(int FormatVersion, int Width, int Height, int MaxZoom, int SourceBitPix, BandStatistics Statistics)
+/// <summary>
+/// The small JSON file written last into a pyramid folder: its presence and contents mark a complete build.
+/// NativeStored says the native level has its own level file too; a manifest without the field (written before
+/// the option existed) reads as false, so such a folder keeps reading its native pixels from the plane.
+/// </summary>
+internal sealed record PyramidManifest(int FormatVersion, int Width, int Height, int MaxZoom, int SourceBitPix, BandStatistics Statistics, bool NativeStored)
 {
     public const string Format = "mosaic-pyramid";
     public const int CurrentVersion = 1;
@@ -26,8 +30,9 @@ internal sealed record PyramidManifest(int FormatVersion, int Width, int Height,
         json.WriteNumber("height", Height);
         json.WriteNumber("bitPix", SourceBitPix);
         json.WriteEndObject();
+        json.WriteBoolean("nativeStored", NativeStored);
         json.WriteStartArray("levels");
-        for (var z = 0; z < MaxZoom; z++)
+        for (var z = 0; z < (NativeStored ? MaxZoom + 1 : MaxZoom); z++)
         {
             json.WriteStartObject();
             json.WriteNumber("zoom", z);
@@ -81,8 +86,9 @@ internal sealed record PyramidManifest(int FormatVersion, int Width, int Height,
             var statistics = new BandStatistics(stats.GetProperty("count").GetInt64(), stats.GetProperty("masked").GetInt64(),
                 ReadNumberOrNull(stats, "min"), ReadNumberOrNull(stats, "max"), ReadNumberOrNull(stats, "mean"),
                 ReadNumberOrNull(stats, "median"), ReadNumberOrNull(stats, "madSigma"));
+            var nativeStored = root.TryGetProperty("nativeStored", out var stored) && stored.GetBoolean();
             return new PyramidManifest(version, root.GetProperty("width").GetInt32(), root.GetProperty("height").GetInt32(),
-                root.GetProperty("maxZoom").GetInt32(), source.GetProperty("bitPix").GetInt32(), statistics);
+                root.GetProperty("maxZoom").GetInt32(), source.GetProperty("bitPix").GetInt32(), statistics, nativeStored);
         }
         catch (Exception e) when (e is JsonException or KeyNotFoundException or InvalidOperationException or FormatException)
         {

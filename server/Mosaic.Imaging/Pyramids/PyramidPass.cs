@@ -14,15 +14,15 @@ internal static class PyramidPass
     private const int MaxStripRows = 64;
     private const int MaxStripPixels = 1 << 19;
 
-    /// <summary>Writes every reduced level into <paramref name="folder"/> and returns the histogram of the native pixels.</summary>
-    public static ValueHistogram Run(IRowSource source, string folder, IProgress<double>? progress, CancellationToken cancellationToken)
+    /// <summary>Writes every reduced level (and the native one where asked) into <paramref name="folder"/> and returns the histogram of the native pixels.</summary>
+    public static ValueHistogram Run(IRowSource source, string folder, bool storeNative, IProgress<double>? progress, CancellationToken cancellationToken)
     {
         var geometry = new PyramidGeometry(source.Width, source.Height);
         int width = source.Width, height = source.Height;
         var stripRows = StripRows(width, height);
         var histogram = new ValueHistogram();
         var workerHistogram = new ValueHistogram();
-        using var cascade = new LevelCascade(geometry, folder);
+        using var cascade = new LevelCascade(geometry, folder, storeNative);
         float[][] buffers = [new float[stripRows * width], new float[stripRows * width]];
 
         // An odd height leaves the bottom stored row alone in its block; a first strip one row short keeps every later strip on block boundaries.

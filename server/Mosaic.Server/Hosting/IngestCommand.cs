@@ -89,6 +89,9 @@ public static class IngestCommand
         output.WriteLine($"Ingesting {Plural(fields.Count, "field")} of {options.DataDirectory} into {options.CacheDirectory}");
         foreach (var band in fields.SelectMany(f => f.Bands).Where(b => b.Error is not null))
             error.WriteLine($"ingest: skipped {band.FilePath}: {band.Error}");
+        foreach (var band in fields.SelectMany(f => f.Bands).Where(b => b.Canvas is not null))
+            foreach (var chip in band.Canvas!.Excluded)
+                output.WriteLine($"  note: {band.Field.Id}/{band.Name}/{chip.Name} (HDU {chip.Hdu}) is left off the canvas: {chip.Reason}");
         var targets = fields.SelectMany(IngestTargets.Of).ToList();
         if (targets.Count == 0)
         {

@@ -140,7 +140,14 @@ public sealed class PyramidService : BackgroundService
         if (!Directory.Exists(directory)) return false;
         try
         {
-            entry.Pyramid = Pyramid.Open(directory, entry.Hdu.Plane);
+            var pyramid = Pyramid.Open(directory, entry.Hdu.Plane);
+            if (entry.Hdu.IsCanvas && !pyramid.StoresNative)
+            {
+                // Built before canvases stored their native level: reading it would resample the chips per tile.
+                pyramid.Dispose();
+                throw new InvalidDataException("the canvas pyramid does not store its native level");
+            }
+            entry.Pyramid = pyramid;
             entry.State = PyramidState.Ready;
             return true;
         }
@@ -203,7 +210,7 @@ public sealed class PyramidService : BackgroundService
         try
         {
             if (Directory.Exists(directory)) Directory.Delete(directory, recursive: true);
-            PyramidBuilder.Build(hdu.Plane, directory, progress, stoppingToken);
+            PyramidBuilder.Build(hdu.Plane, directory, BuildOptions(hdu), progress, stoppingToken);
             entry.Pyramid = Pyramid.Open(directory, hdu.Plane);
             entry.State = PyramidState.Ready;
             _logger.LogInformation("Pyramid of {Hdu} ready in {Seconds:F2} s ({Rate:F0} Mpx/s)", hdu.Description, clock.Elapsed.TotalSeconds, megapixels / clock.Elapsed.TotalSeconds);
@@ -219,6 +226,9 @@ public sealed class PyramidService : BackgroundService
             _logger.LogError("The pyramid of {Hdu} failed: {Error}", hdu.Description, e.Message);
         }
     }
+
+    /// <summary>A canvas is resampled from its chips once, here, and keeps that native level; a chip's plane is read directly.</summary>
+    private static PyramidBuildOptions BuildOptions(FieldHdu hdu) => new() { StoreNative = hdu.IsCanvas };
 
     /// <summary>Progress&lt;T&gt; posts to the thread pool; the builder's reports are cheap enough to take inline.</summary>
     private sealed class SynchronousProgress(Action<double> report) : IProgress<double>

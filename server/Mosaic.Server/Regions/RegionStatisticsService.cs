@@ -26,17 +26,9 @@ public sealed class RegionStatisticsService(PyramidService pyramids)
         if (box.PixelCount <= maxExactPixels || hdu.Geometry.MaxZoom == 0)
         {
             var buffer = GC.AllocateUninitializedArray<float>((int)box.PixelCount);
-            long masked = 0;
-            var filled = 0;
-            for (var k = 0; k < box.Height; k++)
-            {
-                var row = buffer.AsSpan(filled, box.Width);
-                plane.ReadRow(box.StoredRowFromTop(k), box.X0 - 1, row);
-                var kept = KeepFinite(row);
-                masked += box.Width - kept;
-                filled += kept;
-            }
-            return SortedSample.Describe(buffer.AsSpan(0, filled), masked, exact: true, level: null);
+            NativeBox.ReadRows(pyramids, hdu, box, 0, buffer);
+            var kept = KeepFinite(buffer);
+            return SortedSample.Describe(buffer.AsSpan(0, kept), buffer.Length - kept, exact: true, level: null);
         }
         return FromLevel(pyramids.GetReady(hdu), box, maxExactPixels);
     }

@@ -8,7 +8,8 @@ namespace Mosaic.Fits.Tests.Compressed;
 /// row of each tile on), while astropy (the same library reading whole tiles) stays within half a quantum; there the
 /// reference is astropy, and <see cref="QuantisationBoundTests"/> checks the bound against the source.
 /// </param>
-public sealed record FpackCase(string Name, string Source, string[] Arguments, bool AstropyReads = true, bool FunpackReads = true)
+/// <param name="Lossy">Lossy beyond quantisation (HCOMPRESS_1 with a scale): funpack and astropy are the reference, the source is not.</param>
+public sealed record FpackCase(string Name, string Source, string[] Arguments, bool AstropyReads = true, bool FunpackReads = true, bool Lossy = false)
 {
     public override string ToString() => Name;
 }

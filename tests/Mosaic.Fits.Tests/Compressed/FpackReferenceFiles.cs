@@ -24,6 +24,14 @@ public sealed class FpackReferenceFiles : IDisposable
         new("u8_plio", "u8", ["-p"]),
         new("mask16_plio", "mask16", ["-p"]),
         new("mask16_plio_t16", "mask16", ["-p", "-t", "16,16"]),
+        new("i16_hcompress", "i16", ["-h"]),
+        new("i16_hcompress_t16", "i16", ["-h", "-t", "16,16"]),
+        new("i16_hcompress_lossy", "i16", ["-h", "-s", "2.5"], Lossy: true),
+        new("s32_hcompress_lossy_t16", "s32", ["-h", "-s", "-4", "-t", "16,16"], Lossy: true),
+        new("u8_hcompress", "u8", ["-h"]),
+        new("i32_hcompress_t64", "i32", ["-h", "-t", "64,64"]),
+        new("s32_hcompress", "s32", ["-h"]),
+        new("f32_hcompress_dither1", "f32", ["-h", "-q", "4"]),
         new("i32_rice_t64", "i32", ["-t", "64,64"]),
         new("i32_gzip1", "i32", ["-g1"]),
         new("s32_rice", "s32", []),
@@ -52,7 +60,6 @@ public sealed class FpackReferenceFiles : IDisposable
             Run("/usr/bin/fpack", [.. c.Arguments, "-O", PathOf(c.Name), _folder.File(c.Source + ".fits")]);
             Run("/usr/bin/funpack", ["-O", _folder.File(c.Name + ".ref.fits"), PathOf(c.Name)]);
         }
-        Run("/usr/bin/fpack", ["-h", "-O", PathOf("hcompress"), _folder.File("i16.fits")]);
         var output = Support.Astropy.Run("compressed_reference.py", [_folder.Path, .. Cases.Select(c => c.AstropyReads ? c.Name : "+" + c.Name)]);
         Headers = JsonDocument.Parse(output);
     }

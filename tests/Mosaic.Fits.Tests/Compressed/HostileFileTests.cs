@@ -132,20 +132,29 @@ public sealed class HostileFileTests(FpackReferenceFiles files) : IDisposable
     }
 
     [Fact]
+    public void HCompressStreamForAnotherTileSize()
+    {
+        // Section 10.4.4: the stream records the tile's size; one that disagrees with ZTILEn is refused.
+        FailsOnRead(PatchedFile.Of(files.PathOf("i16_hcompress")).Card("ZNAXIS1", "50".PadLeft(20)).Card("ZTILE1", "50".PadLeft(20)),
+            "ZCMPTYPE", "HCOMPRESS_1 stream holds 16 x 53 values", "16 x 50");
+    }
+
+    [Fact]
     public void CorruptGzipStream()
     {
         FailsOnRead(PatchedFile.Of(files.PathOf("i16_gzip1")).CorruptFirstTile(), "ZCMPTYPE", "gzip");
     }
 
     [Fact]
-    public void CodecThisReaderLacksIsNamedNotGuessed()
+    public void SmoothingOnDecompressionIsRefusedWithTheReason()
     {
-        // fpack -h (HCOMPRESS_1, section 10.4.4): the HDU is listed, without an image, with the reason.
-        using var fits = FitsFile.Open(files.PathOf("hcompress"));
+        // HCOMPRESS_1 SMOOTH = 1 (section 10.4.4) asks the reader to smooth: the HDU is listed, without an image, with the reason.
+        var path = Write(PatchedFile.Of(files.PathOf("i16_hcompress")).Card("ZVAL2", "1".PadLeft(20)));
+        using var fits = FitsFile.Open(path);
         var hdu = fits.Hdus[1];
         Assert.Null(hdu.Image);
         Assert.Contains("HCOMPRESS_1", hdu.ImageProblem);
-        Assert.Contains("not supported", hdu.ImageProblem);
+        Assert.Contains("SMOOTH", hdu.ImageProblem);
         Assert.Equal(2, hdu.Header.GetLong("NAXIS"));
     }
 }

@@ -29,6 +29,8 @@ public sealed partial class IngestCommandTests(IngestDataFixture data) : IClassF
         foreach (var band in data.Reference.RootElement.GetProperty("bands").EnumerateObject())
             Assert.Matches($@"(?m)^ +ready +camp/{band.Name}/CANVAS \(\d+ x \d+\)", output);
         Assert.True(output.LastIndexOf("camp/a/CHIP2", StringComparison.Ordinal) < output.IndexOf("camp/a/CANVAS", StringComparison.Ordinal), output);
+        // The chip without a WCS still gets its own pyramid (above), and the ingest says why it is not on the canvas.
+        Assert.Contains("camp/b/CHIP3 (HDU 3) is left off the canvas", output);
         var built = CacheFiles(cache);
 
         using var factory = new MosaicFactory(data.DataDirectory, cache);

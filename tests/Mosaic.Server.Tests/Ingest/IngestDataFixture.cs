@@ -6,8 +6,8 @@ namespace Mosaic.Server.Tests.Ingest;
 /// <summary>
 /// A data folder written by astropy.io.fits (Debian python3-astropy): a folder field of two bands (FILTER a and b),
 /// each with two float32 chips side by side on the sky (TAN WCS) and some NaN pixels, band b's chips a different
-/// size from band a's; a single-frame int16 file; and a file that is not FITS. numpy reports, per band, the pixel
-/// count, the NaN count, min and max, and every image HDU's shape.
+/// size from band a's and a third chip of b without WCS; a single-frame int16 file; and a file that is not FITS.
+/// numpy reports, per band, the pixel count, the NaN count, min and max, and every image HDU's shape.
 /// </summary>
 public sealed class IngestDataFixture : IDisposable
 {
@@ -41,6 +41,12 @@ for filt, (nx, ny), scale in (("a", (300, 200), 0.25 / 3600), ("b", (240, 160), 
         chips.append(chip(data, f"CHIP{k}", 150.0 + (k - 1.5) * width_deg * 1.02, scale))
         values.append(data.ravel())
         out["images"].append({"field": "camp", "band": filt, "hdu": k, "width": nx, "height": ny})
+    if filt == "b":
+        # A third chip without any WCS: served on its own, left off the canvas.
+        data = rng.normal(300.0, 4.0, size=(ny, nx)).astype(np.float32)
+        chips.append(fits.ImageHDU(data, name="CHIP3"))
+        values.append(data.ravel())
+        out["images"].append({"field": "camp", "band": filt, "hdu": 3, "width": nx, "height": ny})
     primary = fits.PrimaryHDU()
     primary.header["FILTER"] = filt
     fits.HDUList([primary] + chips).writeto(os.path.join(root, "camp", f"camp_{filt}.fits"), overwrite=True)
