@@ -30,7 +30,7 @@ export class PixelReadout {
     this.#probe = probe;
   }
 
-  /** The HDU being viewed: {field, band, hdu, hduName, width, height}. */
+  /** The HDU being viewed: {field, band, hdu, hduName, width, height}, and `channels` for a composite's bands. */
   setSource(source) {
     this.#forget();
     this.#source = source;
@@ -105,6 +105,14 @@ export class PixelReadout {
 
   #showAnswer(answer) {
     this.#showPixel(answer.x, answer.y);
+    if (answer.channels) {
+      // A composite: every band's value, masked where that band is.
+      const text = answer.channels.map((c) => `${c.short} ${c.value === null ? 'masked' : formatPixelValue(c.value)}`).join(' · ');
+      const masked = answer.channels.some((c) => c.value === null);
+      this.#showValue(text, masked ? 'masked' : 'value', masked ? null : answer.channels[0].value);
+      this.#valueLabel.dataset.values = answer.channels.map((c) => (c.value === null ? '' : String(c.value))).join(',');
+      return;
+    }
     if (answer.value === null || answer.value === undefined) {
       this.#showValue('masked', 'masked');
     } else {
@@ -125,6 +133,7 @@ export class PixelReadout {
 
   #showValue(text, kind, value = null) {
     this.#valueLabel.textContent = text;
+    delete this.#valueLabel.dataset.values;
     this.#valueLabel.dataset.kind = kind;
     if (value === null) delete this.#valueLabel.dataset.value;
     else this.#valueLabel.dataset.value = String(value);

@@ -1,8 +1,12 @@
 // The view state lives here and nowhere else: controls read it and ask it to change, and every change is mirrored
 // into the page URL so that reloading or sharing the link opens the same view, display settings included.
 import { EMPTY_DISPLAY, normaliseDisplay, parseDisplayQuery, displayParameters, sameDisplay } from './display-query.js';
+import { EMPTY_COLOUR, normaliseColour, parseColourQuery, colourParameters, sameColour } from './colour-query.js';
+import { EMPTY_LAYOUT, normaliseLayout, parseLayoutQuery, layoutParameters, sameLayout } from './layout-query.js';
 
-const EMPTY = Object.freeze({ field: null, band: null, hdu: null, x: null, y: null, z: null, display: EMPTY_DISPLAY });
+const EMPTY = Object.freeze({
+  field: null, band: null, hdu: null, x: null, y: null, z: null, display: EMPTY_DISPLAY, colour: EMPTY_COLOUR, layout: EMPTY_LAYOUT,
+});
 const VIEW_KEYS = Object.freeze(['field', 'band', 'hdu', 'x', 'y', 'z']);
 
 // A hundredth of a pixel and of a zoom level is finer than anyone can see, and keeps links short.
@@ -39,13 +43,15 @@ function normalise(state) {
     y: Number.isFinite(state.y) ? round(state.y) : null,
     z: Number.isFinite(state.z) ? round(state.z) : null,
     display: normaliseDisplay(state.display ?? EMPTY_DISPLAY),
+    colour: normaliseColour(state.colour ?? EMPTY_COLOUR),
+    layout: normaliseLayout(state.layout ?? EMPTY_LAYOUT),
   });
 }
 
 /**
  * Reads a view from a URL query such as `?field=demo&band=red&hdu=3&x=1024.5&y=2048.5&z=3&stretch=log&a=300`:
- * the display parameters are those of the tile URLs, except that `masked` is the colour the page paints masked
- * pixels in.
+ * the display and colour parameters are those of the tile URLs, except that `masked` is the colour the page paints
+ * masked pixels in; the layout parameters (layout-query.js) are the page's own.
  */
 export function parseViewQuery(search) {
   const query = new URLSearchParams(search);
@@ -57,6 +63,8 @@ export function parseViewQuery(search) {
     y: parseNumber(query.get('y')),
     z: parseNumber(query.get('z')),
     display: parseDisplayQuery(query),
+    colour: parseColourQuery(query),
+    layout: parseLayoutQuery(query),
   });
 }
 
@@ -67,6 +75,8 @@ export function formatViewQuery(state) {
     if (state[key] !== null) query.set(key, String(state[key]));
   }
   for (const [name, value] of displayParameters(state.display ?? EMPTY_DISPLAY)) query.set(name, value);
+  for (const [name, value] of colourParameters(state.colour ?? EMPTY_COLOUR)) query.set(name, value);
+  for (const [name, value] of layoutParameters(state.layout ?? EMPTY_LAYOUT)) query.set(name, value);
   const text = query.toString();
   return text ? `?${text}` : '';
 }
@@ -95,10 +105,11 @@ export class ViewState extends EventTarget {
     return this.#state;
   }
 
-  /** Merges `changes` into the state; null clears a key. `display` replaces the display settings as a whole. */
+  /** Merges `changes` into the state; null clears a key. `display`, `colour` and `layout` each replace that part as a whole. */
   update(changes) {
     const next = normalise({ ...this.#state, ...changes });
-    if (VIEW_KEYS.every((key) => next[key] === this.#state[key]) && sameDisplay(next.display, this.#state.display)) return;
+    if (VIEW_KEYS.every((key) => next[key] === this.#state[key]) && sameDisplay(next.display, this.#state.display)
+      && sameColour(next.colour, this.#state.colour) && sameLayout(next.layout, this.#state.layout)) return;
     this.#state = next;
     this.#mirrorToUrl();
     this.dispatchEvent(new CustomEvent('change', { detail: next }));
