@@ -62,6 +62,25 @@ export function probePixel({ field, band, hdu }, x, y, signal) {
 }
 
 /**
+ * The pixel at a sky position typed by a person (sexagesimal or decimal degrees, ICRS), on whichever HDU of the band
+ * holds it: the answer's `hdu` says which, `atX`/`atY` where on it.
+ */
+export function probePosition({ field, band }, position, signal) {
+  const query = new URLSearchParams({ band, position });
+  return getJson(`api/fields/${encodeURIComponent(field)}/probe?${query}`, signal);
+}
+
+/**
+ * What a coordinate grid, compass and scale bar need for box [x0, x1] x [y0, y1] (FITS, 1-based, fractional)
+ * drawn on `width` x `height` screen pixels: the centre's sky position, north and east, pixel scale, grid lines.
+ */
+export function getSky({ field, band, hdu }, { x0, y0, x1, y1, width, height }, signal) {
+  const query = new URLSearchParams({ band, hdu: String(hdu) });
+  for (const [name, value] of Object.entries({ x0, y0, x1, y1, width, height })) query.set(name, String(value));
+  return getJson(fieldPath(field, 'sky', query), signal);
+}
+
+/**
  * A Leaflet URL template for the tiles of one HDU with the given display settings. Masked pixels stay transparent
  * in tiles: the page paints its own masked colour under them, so changing that colour fetches nothing.
  */

@@ -1,6 +1,6 @@
 // Wires the controls together: the pickers choose what to show, the display panel how to draw it, the image view
 // shows it, and the view state (and so the URL) follows all three.
-import { listFields, getField, tileUrlTemplate, compositeTileUrlTemplate, getCompositeDisplay, listPalettes } from './api.js';
+import { listFields, getField, tileUrlTemplate, compositeTileUrlTemplate, getCompositeDisplay, listPalettes, probePosition } from './api.js';
 import { ViewState } from './state.js';
 import { ImageView } from './image-view.js';
 import { FieldPicker } from './field-picker.js';
@@ -21,6 +21,13 @@ import { ColourControls, readResolvedColour } from './colour-controls.js';
 import { LayoutControls } from './layout-controls.js';
 import { PaneGrid } from './pane-grid.js';
 import { setSectionActive } from './section-state.js';
+import { GotoBox } from './goto-box.js';
+import { createPositionMarker } from './position-marker.js';
+import { GridToggle } from './grid-toggle.js';
+import { SkySync } from './sky-sync.js';
+import { SkyGrid } from './sky-grid.js';
+import { Compass } from './compass.js';
+import { ScaleBar } from './scale-bar.js';
 
 const state = ViewState.fromUrl();
 const imageView = new ImageView(document.getElementById('image-view'));
@@ -41,15 +48,25 @@ const layoutControls = new LayoutControls(panelRoot.querySelector('[data-role=la
 const stage = document.querySelector('.stage');
 const panes = new PaneGrid(document.getElementById('pane-grid'));
 const bandSelect = document.getElementById('band-picker');
+const gotoBox = new GotoBox(document.getElementById('goto-box'), probePosition);
+const gridToggle = new GridToggle(document.getElementById('grid-toggle'));
+const skySync = new SkySync();
+const grid = new SkyGrid(imageView);
+const compass = new Compass(document.getElementById('compass'));
+const scaleBar = new ScaleBar(document.getElementById('scale-bar'));
 
 let fields = [];
 let field = null;
-// The HDU on screen: {field, band, hdu} plus whether its tiles were ready when last seen. In a colour mode `band`
-// is the red channel's, whose chips the chip picker lists.
+// The HDU on screen: {field, band, hdu} plus whether its tiles were ready when last seen, and its `sky`. In a
+// colour mode `band` is the red channel's, whose chips the chip picker lists.
 let shown = null;
 // The geometry of what the image view shows, so a new display restyles the tiles instead of replacing them.
 let shownGeometry = null;
 let compositeRequest = null;
+// The go-to mark: {marker, field, band, hdu}; shown only over the HDU it was found on.
+let mark = null;
+// Arcsec per image pixel near the middle of the view: from the newest /sky answer, else the HDU's own.
+let pixelScale = null;
 
 const isPreparing = (hdu) => hdu.pyramid?.state === 'queued' || hdu.pyramid?.state === 'building';
 
@@ -125,13 +142,82 @@ function open(candidate, { band: bandName = null, hdu: hduIndex = null, view = n
   state.update(colourMode ? { field: candidate.id, hdu: hdu.index, band: state.current.band ?? candidate.defaultBand } : source);
   colourControls.setBands(readableNames(candidate));
 
-  shown = { ...source, ready: hdu.pyramid?.state === 'ready' };
+  shown = { ...source, ready: hdu.pyramid?.state === 'ready', sky: hdu.sky ?? null };
   shownGeometry = null;
+  showSky(source, hdu);
   render(view);
   panel.limits.fitEnabled = true;
   sync.update(source, state.current.display);
   progress.show(hdu.name, hdu.pyramid);
   watchPreparation(band);
+  refreshSky();
+}
+
+// The sky overlays for a newly shown HDU: the go-to mark only over its own HDU, grid and compass from scratch.
+function showSky(source, hdu) {
+  const hasSky = hdu.sky !== null && hdu.sky !== undefined;
+  if (mark !== null && !(mark.field === source.field && mark.band === source.band && mark.hdu === source.hdu)) clearMark();
+  gotoBox.setSource({ field: source.field, band: source.band });
+  gridToggle.setAvailable(hasSky, hdu.skyError);
+  pixelScale = hasSky && Number.isFinite(hdu.sky.pixelScale) ? hdu.sky.pixelScale : null;
+  skySync.setSource(source, hasSky);
+}
+
+// After every pan and zoom: the scale bar follows at once, the grid and compass when the server answers.
+function refreshSky() {
+  const screen = imageView.screen;
+  if (screen !== null && pixelScale !== null) scaleBar.show(pixelScale, screen.scale);
+  else scaleBar.hide();
+  skySync.update(screen);
+}
+
+function onSky({ answer, scale }) {
+  if (Number.isFinite(answer.pixelScale) && answer.pixelScale > 0) pixelScale = answer.pixelScale;
+  const screen = imageView.screen;
+  if (pixelScale !== null) scaleBar.show(pixelScale, screen?.scale ?? scale);
+  compass.show(answer.north ?? null, answer.east ?? null);
+  grid.show(answer.grid ?? null, screen?.imageWidth ?? null, screen?.imageHeight ?? null);
+}
+
+function onSkyCleared(error) {
+  compass.hide();
+  grid.show(null);
+  if (error) message.show(`No coordinate grid here: ${error.detail || error.message}`, 'sky');
+  else message.clear('sky');
+}
+
+function setGrid(on) {
+  grid.on = on;
+  gridToggle.pressed = on;
+  state.update({ grid: on });
+}
+
+function clearMark() {
+  if (mark === null) return;
+  imageView.removeOverlay(mark.marker);
+  mark = null;
+  gotoBox.marked = false;
+}
+
+// The go-to box found the position: on another chip that chip opens, centred there; the mark goes on it.
+function goTo(answer) {
+  message.clear('goto');
+  if (shown === null || field === null) return;
+  const target = { field: shown.field, band: shown.band, hdu: answer.hdu };
+  clearMark();
+  if (answer.hdu !== shown.hdu) {
+    const z = imageView.view?.z ?? null;
+    const hdu = field.bands.find((b) => b.name === shown.band)?.hdus.find((h) => h.index === answer.hdu) ?? null;
+    const view = z === null || hdu === null ? null : { x: answer.atX, y: answer.atY, z: imageView.centringZoom(answer.atX, answer.atY, z, hdu) };
+    open(field, { band: shown.band, hdu: answer.hdu, view });
+    if (shown.hdu !== answer.hdu) return;
+  } else {
+    imageView.centreOn(answer.atX, answer.atY);
+  }
+  const marker = createPositionMarker(answer.atX, answer.atY, answer.text);
+  imageView.addOverlay(marker);
+  mark = { marker, ...target };
+  gotoBox.marked = true;
 }
 
 /** The same HDU index in another band, or null when that band has none. */
@@ -203,6 +289,7 @@ function render(view = null) {
   const readBand = base === COMPOSITE_LAYER ? shown.band : base;
   readout.setSource({
     field: field.id, band: readBand, hdu: shown.hdu, hduName: hdu.name, width: hdu.width, height: hdu.height,
+    sky: hdu.sky ?? null, skyError: hdu.skyError ?? null,
     channels: base === COMPOSITE_LAYER ? CHANNELS.map((channel) => ({ channel, band: channels[channel] })) : undefined,
   });
   resolveComposite();
@@ -396,7 +483,19 @@ function wireEvents() {
     message.clear();
     if (field) open(field, { band: shown?.band ?? null, hdu: event.detail });
   });
-  imageView.addEventListener('viewchange', (event) => state.update(event.detail));
+  imageView.addEventListener('viewchange', (event) => {
+    state.update(event.detail);
+    refreshSky();
+  });
+  gotoBox.addEventListener('found', (event) => goTo(event.detail));
+  gotoBox.addEventListener('failed', (event) => message.show(`Go to: ${event.detail.detail || event.detail.message}`, 'goto'));
+  gotoBox.addEventListener('clear', () => {
+    clearMark();
+    message.clear('goto');
+  });
+  gridToggle.addEventListener('toggle', (event) => setGrid(event.detail));
+  skySync.addEventListener('sky', (event) => onSky(event.detail));
+  skySync.addEventListener('clear', (event) => onSkyCleared(event.detail));
   imageView.addEventListener('pointer', (event) => readout.pointAt(event.detail));
   panel.addEventListener('change', (event) => applyDisplay(event.detail));
   panel.addEventListener('fit-view', () => fitLimitsToView());
@@ -416,6 +515,7 @@ function wireEvents() {
 
 async function start() {
   wireEvents();
+  setGrid(state.current.grid);
   panel.limits.fitEnabled = false;
   panel.show(state.current.display, null);
   paintMask(state.current.display);

@@ -5,6 +5,7 @@ import { createPixelCrs, imageBounds } from './pixel-crs.js';
 import { MaskLayer } from './mask-layer.js';
 import { FitControl } from './fit-control.js';
 import { CompareLayer } from './compare-layer.js';
+import { BOUNDS_PAD, centringZoom } from './view-limits.js';
 
 // Beyond native resolution each image pixel becomes an 8 x 8 block at most.
 const ZOOM_PAST_NATIVE = 3;
@@ -35,6 +36,8 @@ export class ImageView extends EventTarget {
   #tiles = null;
   #tileUrl = null;
   #pointer = null;
+  // Layers drawn over the image (grid, marks): carried over to each new map.
+  #overlays = new Set();
   // Keys move the map under a crosshair at the middle, and the readout follows that instead of the mouse.
   #keyboardProbe = false;
   #compare = null;
@@ -96,6 +99,55 @@ export class ImageView extends EventTarget {
       next.onerror = swap;
       next.src = src;
     }
+  }
+
+  /**
+   * The map area on screen in FITS coordinates (fractional, may extend past the image), the image's size, the view's
+   * size in screen pixels and `scale`, screen pixels per image pixel; null before anything is shown.
+   */
+  get screen() {
+    if (this.#map === null) return null;
+    const bounds = this.#map.getBounds();
+    const size = this.#map.getSize();
+    return {
+      x0: bounds.getWest(),
+      x1: bounds.getEast(),
+      y0: bounds.getSouth(),
+      y1: bounds.getNorth(),
+      width: size.x,
+      height: size.y,
+      scale: 2 ** (this.#map.getZoom() - this.#geometry.maxZoom),
+      imageWidth: this.#geometry.width,
+      imageHeight: this.#geometry.height,
+    };
+  }
+
+  /**
+   * The lowest zoom from `zoom` up at which FITS position (x, y) of an image `width` x `height` with native zoom
+   * `maxZoom` can be at the middle of this view: zoomed out, the view is kept over the image and a point near its
+   * edge could not be centred.
+   */
+  centringZoom(x, y, zoom, { width, height, maxZoom } = this.#geometry) {
+    const viewSize = { viewWidth: this.#container.clientWidth, viewHeight: this.#container.clientHeight };
+    return centringZoom({ width, height, nativeZoom: maxZoom, maxZoom: maxZoom + ZOOM_PAST_NATIVE }, viewSize, x, y, zoom);
+  }
+
+  /** Puts FITS position (x, y) at the middle of the view, zooming in only as far as that needs. */
+  centreOn(x, y) {
+    if (this.#map === null) return;
+    // reset: a pan moves by whole screen pixels, and the point would miss the middle by up to one.
+    this.#map.setView([y, x], this.centringZoom(x, y, this.#map.getZoom()), { reset: true });
+  }
+
+  /** Draws a Leaflet layer over the image, on this map and every later one, until `removeOverlay`. */
+  addOverlay(layer) {
+    this.#overlays.add(layer);
+    if (this.#map !== null) layer.addTo(this.#map);
+  }
+
+  removeOverlay(layer) {
+    this.#overlays.delete(layer);
+    layer.remove();
   }
 
   /** The centre (FITS pixels) and zoom, or null before anything is shown. */
@@ -201,7 +253,7 @@ export class ImageView extends EventTarget {
       wheelPxPerZoomLevel: 90,
       keyboardPanDelta: 120,
       // Loose bounds: the image can be dragged half off screen, never lost.
-      maxBounds: this.#bounds.pad(0.5),
+      maxBounds: this.#bounds.pad(BOUNDS_PAD),
       maxBoundsViscosity: 0.8,
       attributionControl: false,
       zoomControl: false,
@@ -222,6 +274,8 @@ export class ImageView extends EventTarget {
       fill: false,
       interactive: false,
     }).addTo(map);
+
+    for (const layer of this.#overlays) layer.addTo(map);
 
     map.on('zoomend', () => this.#markPastNative());
     map.on('moveend', () => this.dispatchEvent(new CustomEvent('viewchange', { detail: this.view })));

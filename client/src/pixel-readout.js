@@ -1,6 +1,8 @@
-// Shows the pixel under the pointer: its 1-based FITS x and y, at once, and its value, asked from the server with at
-// most one request in flight; a request made stale by a newer position or another HDU is dropped or ignored.
+// Shows the pixel under the pointer: its 1-based FITS x and y, at once, and its value and sky position, asked from
+// the server with at most one request in flight; a request made stale by a newer position or another HDU is dropped
+// or ignored.
 import { probePixel } from './api.js';
+import { SkyReadout } from './sky-readout.js';
 import { containingPixel } from './pixel-crs.js';
 import { formatPixelValue } from './value-format.js';
 
@@ -12,6 +14,7 @@ export class PixelReadout {
   #xLabel;
   #yLabel;
   #valueLabel;
+  #sky;
   #probe;
   #source = null;
   // The pixel shown now, and the request for it not yet sent.
@@ -27,13 +30,15 @@ export class PixelReadout {
     this.#xLabel = element.querySelector('[data-role="x"]');
     this.#yLabel = element.querySelector('[data-role="y"]');
     this.#valueLabel = element.querySelector('[data-role="value"]');
+    this.#sky = new SkyReadout(element.querySelector('[data-role="sky"]'));
     this.#probe = probe;
   }
 
-  /** The HDU being viewed: {field, band, hdu, hduName, width, height}, and `channels` for a composite's bands. */
+  /** The HDU being viewed: {field, band, hdu, hduName, width, height, sky, skyError} (sky null: no celestial WCS), and `channels` for a composite's bands. */
   setSource(source) {
     this.#forget();
     this.#source = source;
+    this.#sky.setSource(source.sky ?? null, source.skyError ?? null);
     this.#hduLabel.textContent = source.hduName;
     this.#hduLabel.title = `${source.field} · ${source.band} · HDU ${source.hdu}`;
     this.#showNothing();
@@ -49,15 +54,25 @@ export class PixelReadout {
     }
     const px = containingPixel(at.x);
     const py = containingPixel(at.y);
-    if (this.#current?.px === px && this.#current?.py === py) return;
+    if (this.#current?.px === px && this.#current?.py === py) {
+      // Same pixel, so the same value; the sky position follows the pointer within it (zoomed past native).
+      if (this.#current.inside) {
+        this.#pending = { source: this.#source, x: at.x, y: at.y, sequence: this.#sequence };
+        this.#schedule();
+      }
+      return;
+    }
     this.#forget();
-    this.#current = { px, py };
+    const inside = px >= 1 && py >= 1 && px <= this.#source.width && py <= this.#source.height;
+    this.#current = { px, py, inside };
     this.#showPixel(px, py);
-    if (px < 1 || py < 1 || px > this.#source.width || py > this.#source.height) {
+    if (!inside) {
       this.#showValue('outside the image', 'outside');
+      this.#sky.showNothing();
       return;
     }
     this.#showValue('…', 'pending');
+    this.#sky.showPending();
     this.#pending = { source: this.#source, x: at.x, y: at.y, sequence: this.#sequence };
     this.#schedule();
   }
@@ -85,6 +100,7 @@ export class PixelReadout {
     } catch (error) {
       if (!controller.signal.aborted && request.sequence === this.#sequence) {
         this.#showValue(`no value: ${error.detail || error.message}`, 'error');
+        this.#sky.showNothing();
       }
     } finally {
       if (this.#inFlight === controller) this.#inFlight = null;
@@ -105,6 +121,7 @@ export class PixelReadout {
 
   #showAnswer(answer) {
     this.#showPixel(answer.x, answer.y);
+    this.#sky.showAnswer(answer);
     if (answer.channels) {
       // A composite: every band's value, masked where that band is.
       const text = answer.channels.map((c) => `${c.short} ${c.value === null ? 'masked' : formatPixelValue(c.value)}`).join(' · ');
@@ -123,6 +140,7 @@ export class PixelReadout {
 
   #showNothing() {
     this.#showPixel(null, null);
+    this.#sky.showNothing();
     this.#showValue('–', 'none');
   }
 

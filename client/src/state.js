@@ -5,9 +5,11 @@ import { EMPTY_COLOUR, normaliseColour, parseColourQuery, colourParameters, same
 import { EMPTY_LAYOUT, normaliseLayout, parseLayoutQuery, layoutParameters, sameLayout } from './layout-query.js';
 
 const EMPTY = Object.freeze({
-  field: null, band: null, hdu: null, x: null, y: null, z: null, display: EMPTY_DISPLAY, colour: EMPTY_COLOUR, layout: EMPTY_LAYOUT,
+  field: null, band: null, hdu: null, x: null, y: null, z: null, grid: false, display: EMPTY_DISPLAY, colour: EMPTY_COLOUR, layout: EMPTY_LAYOUT,
 });
 const VIEW_KEYS = Object.freeze(['field', 'band', 'hdu', 'x', 'y', 'z']);
+// Overlays shown over the image: in the URL only while on (`grid=1`).
+const FLAG_KEYS = Object.freeze(['grid']);
 
 // A hundredth of a pixel and of a zoom level is finer than anyone can see, and keeps links short.
 const DECIMALS = 2;
@@ -42,6 +44,7 @@ function normalise(state) {
     x: Number.isFinite(state.x) ? round(state.x) : null,
     y: Number.isFinite(state.y) ? round(state.y) : null,
     z: Number.isFinite(state.z) ? round(state.z) : null,
+    grid: state.grid === true,
     display: normaliseDisplay(state.display ?? EMPTY_DISPLAY),
     colour: normaliseColour(state.colour ?? EMPTY_COLOUR),
     layout: normaliseLayout(state.layout ?? EMPTY_LAYOUT),
@@ -49,7 +52,7 @@ function normalise(state) {
 }
 
 /**
- * Reads a view from a URL query such as `?field=demo&band=red&hdu=3&x=1024.5&y=2048.5&z=3&stretch=log&a=300`:
+ * Reads a view from a URL query such as `?field=demo&band=red&hdu=3&x=1024.5&y=2048.5&z=3&grid=1&stretch=log&a=300`:
  * the display and colour parameters are those of the tile URLs, except that `masked` is the colour the page paints
  * masked pixels in; the layout parameters (layout-query.js) are the page's own.
  */
@@ -62,6 +65,7 @@ export function parseViewQuery(search) {
     x: parseNumber(query.get('x')),
     y: parseNumber(query.get('y')),
     z: parseNumber(query.get('z')),
+    grid: query.get('grid')?.trim() === '1',
     display: parseDisplayQuery(query),
     colour: parseColourQuery(query),
     layout: parseLayoutQuery(query),
@@ -74,6 +78,9 @@ export function formatViewQuery(state) {
   for (const key of VIEW_KEYS) {
     if (state[key] !== null) query.set(key, String(state[key]));
   }
+  for (const key of FLAG_KEYS) {
+    if (state[key] === true) query.set(key, '1');
+  }
   for (const [name, value] of displayParameters(state.display ?? EMPTY_DISPLAY)) query.set(name, value);
   for (const [name, value] of colourParameters(state.colour ?? EMPTY_COLOUR)) query.set(name, value);
   for (const [name, value] of layoutParameters(state.layout ?? EMPTY_LAYOUT)) query.set(name, value);
@@ -82,7 +89,7 @@ export function formatViewQuery(state) {
 }
 
 /**
- * The field, band, HDU, centre (FITS pixels, 1-based), zoom and display settings being viewed. Fires `change` with the new state in
+ * The field, band, HDU, centre (FITS pixels, 1-based), zoom, overlays and display settings being viewed. Fires `change` with the new state in
  * `detail` after every update that changed something.
  */
 export class ViewState extends EventTarget {
@@ -108,7 +115,8 @@ export class ViewState extends EventTarget {
   /** Merges `changes` into the state; null clears a key. `display`, `colour` and `layout` each replace that part as a whole. */
   update(changes) {
     const next = normalise({ ...this.#state, ...changes });
-    if (VIEW_KEYS.every((key) => next[key] === this.#state[key]) && sameDisplay(next.display, this.#state.display)
+    const same = (key) => next[key] === this.#state[key];
+    if (VIEW_KEYS.every(same) && FLAG_KEYS.every(same) && sameDisplay(next.display, this.#state.display)
       && sameColour(next.colour, this.#state.colour) && sameLayout(next.layout, this.#state.layout)) return;
     this.#state = next;
     this.#mirrorToUrl();

@@ -23,6 +23,7 @@ public static class FieldMapper
     {
         var status = pyramids.GetStatus(hdu);
         return new HduDto(hdu.Index, hdu.Name, hdu.Plane.Width, hdu.Plane.Height, hdu.Plane.BitPix, hdu.Unit,
-            hdu.Geometry.MaxZoom, new PyramidStatusDto(status.State.ToString().ToLowerInvariant(), status.Progress, status.Error));
+            hdu.Geometry.MaxZoom, new PyramidStatusDto(status.State.ToString().ToLowerInvariant(), status.Progress, status.Error),
+            SkyMapper.ToDto(hdu.Sky), hdu.Sky.Error);
     }
 }

@@ -1,4 +1,8 @@
 namespace Mosaic.Server.Api;
 
-/// <summary>The pixel that contains a probed point. X and Y are FITS 1-based; Value is physical, null where masked.</summary>
-public sealed record ProbeDto(string Field, string Band, int Hdu, string HduName, int X, int Y, double? Value, string? Bunit);
+/// <summary>
+/// The pixel that contains a probed point. X and Y are FITS 1-based; Value is physical, null where masked. AtX and
+/// AtY are the exact position probed; Ra/Dec (ICRS) and L/B (Galactic) are its sky position, null without a WCS.
+/// </summary>
+public sealed record ProbeDto(string Field, string Band, int Hdu, string HduName, int X, int Y, double? Value, string? Bunit,
+    double AtX, double AtY, double? Ra, double? Dec, string? RaSexagesimal, string? DecSexagesimal, double? L, double? B);

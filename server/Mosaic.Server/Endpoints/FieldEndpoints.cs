@@ -16,7 +16,7 @@ public static class FieldEndpoints
         group.MapGet("/{field}", Get)
             .WithSummary("One field (poll it for pyramid progress).");
         group.MapGet("/{field}/probe", Probe)
-            .WithSummary("The pixel containing FITS position (x, y) of an HDU: its 1-based coordinates and physical value (null where masked).");
+            .WithSummary("The pixel at FITS position (x, y) of an HDU, or at a sky position (ra and dec in ICRS degrees, or typed text in 'position', which finds the HDU): its 1-based coordinates, physical value (null where masked) and sky coordinates.");
         return group;
     }
 
@@ -28,14 +28,17 @@ public static class FieldEndpoints
 
     /// <param name="x">FITS x (1-based; pixel i covers [i - 0.5, i + 0.5)).</param>
     /// <param name="y">FITS y (1-based).</param>
-    private static Ok<ProbeDto> Probe(string field, string? band, string? hdu, string? x, string? y, FieldCatalog catalog)
+    /// <param name="ra">ICRS right ascension in decimal degrees (with dec, instead of x and y).</param>
+    /// <param name="dec">ICRS declination in decimal degrees.</param>
+    /// <param name="position">A sky position as typed: "12:34:56.7 -01:02:03", "12h34m56.7s -1d02m03s" or "188.736 -1.034".</param>
+    private static Ok<ProbeDto> Probe(string field, string? band, string? hdu, string? x, string? y, string? ra, string? dec,
+        string? position, FieldCatalog catalog)
     {
-        var target = catalog.Get(field).ResolveBand(band).ResolveHdu(hdu);
-        var px = ContainingPixel("x", QueryParameters.RequiredFinite("x", x), target.Plane.Width);
-        var py = ContainingPixel("y", QueryParameters.RequiredFinite("y", y), target.Plane.Height);
-        var value = target.Plane.ReadValue(px - 1, py - 1);
-        return TypedResults.Ok(new ProbeDto(target.Band.Field.Id, target.Band.Name, target.Index, target.Name, px, py,
-            double.IsNaN(value) ? null : value, target.Unit));
+        var resolved = catalog.Get(field).ResolveBand(band);
+        var (target, atX, atY) = ProbeTarget.Resolve(resolved, hdu, ProbeQuery.Parse(x, y, ra, dec, position));
+        var px = ContainingPixel("x", atX, target.Plane.Width);
+        var py = ContainingPixel("y", atY, target.Plane.Height);
+        return TypedResults.Ok(ProbeMapper.ToDto(target, atX, atY, px, py, target.Plane.ReadValue(px - 1, py - 1)));
     }
 
     private static int ContainingPixel(string name, double coordinate, int size)

@@ -1,5 +1,6 @@
 using Microsoft.AspNetCore.Diagnostics;
 using Mosaic.Fits;
+using Mosaic.Wcs.Coordinates;
 
 namespace Mosaic.Server.Errors;
 
@@ -38,6 +39,14 @@ public sealed class ProblemExceptionHandler(IProblemDetailsService problemDetail
                 if (e.HduIndex is int hdu) extensions["hdu"] = hdu;
                 if (e.Keyword is not null) extensions["keyword"] = e.Keyword;
                 return (StatusCodes.Status422UnprocessableEntity, "Unreadable FITS data", e.Message, extensions);
+            case PositionFormatException e:
+                // Typed sky positions arrive only in the 'position' parameter.
+                extensions["parameter"] = "position";
+                return (StatusCodes.Status400BadRequest, "Invalid parameter 'position'", $"'position' is not a sky position: {e.Message}.", extensions);
+            case SkyUnavailableException e:
+                if (e.Parameter is not null) extensions["parameter"] = e.Parameter;
+                if (e.SkyError is not null) extensions["skyError"] = e.SkyError;
+                return (StatusCodes.Status422UnprocessableEntity, "No sky coordinates", e.Message, extensions);
             case BadHttpRequestException e:
                 return (e.StatusCode, "Bad request", e.Message, extensions);
             case OperationCanceledException:

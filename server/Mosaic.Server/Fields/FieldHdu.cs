@@ -1,5 +1,6 @@
 using Mosaic.Fits;
 using Mosaic.Imaging.Pyramids;
+using Mosaic.Server.Sky;
 
 namespace Mosaic.Server.Fields;
 
@@ -18,6 +19,9 @@ public sealed class FieldHdu(FieldBand band, Hdu hdu, ImagePlane plane)
     public ImagePlane Plane { get; } = plane;
 
     public PyramidGeometry Geometry { get; } = new(plane.Width, plane.Height);
+
+    /// <summary>The celestial WCS, or why there is none; read once, with the HDU.</summary>
+    public ImageSky Sky { get; } = ImageSky.Read(hdu.Header, plane.Width, plane.Height);
 
     public string? Unit { get; } = hdu.Header.GetString("BUNIT")?.Trim() is { Length: > 0 } unit ? unit : null;
 

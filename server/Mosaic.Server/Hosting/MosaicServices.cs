@@ -39,6 +39,7 @@ public static class MosaicServices
         app.MapOpenApi();
         app.MapHealthEndpoints();
         app.MapFieldEndpoints();
+        app.MapSkyEndpoints();
         app.MapTileEndpoints();
         app.MapStatisticsEndpoints();
         app.MapDisplayEndpoints();

@@ -18,7 +18,7 @@ public static class Galactic
 
     private static readonly Rotation IcrsToGalactic = Fk5ToGalactic.Times(FrameBias.IcrsToFk5Matrix);
 
-    private static readonly Rotation GalacticToIcrs = IcrsToGalactic.Transposed();
+    internal static readonly Rotation GalacticToIcrsMatrix = IcrsToGalactic.Transposed();
 
     /// <summary>ICRS (RA, Dec) in degrees → Galactic (l, b).</summary>
     public static GalacticPosition FromIcrs(double rightAscension, double declination) =>
@@ -39,7 +39,7 @@ public static class Galactic
     public static SkyPosition ToIcrs(GalacticPosition galactic)
     {
         ArgumentNullException.ThrowIfNull(galactic);
-        var (ra, dec) = GalacticToIcrs.Apply(galactic.Longitude, galactic.Latitude);
+        var (ra, dec) = GalacticToIcrsMatrix.Apply(galactic.Longitude, galactic.Latitude);
         return new SkyPosition(ra, dec);
     }
 }

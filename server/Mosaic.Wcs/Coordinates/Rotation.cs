@@ -10,6 +10,8 @@ internal readonly struct Rotation
         (_m00, _m01, _m02, _m10, _m11, _m12, _m20, _m21, _m22) = (m00, m01, m02, m10, m11, m12, m20, m21, m22);
     }
 
+    internal static Rotation Identity { get; } = new(1, 0, 0, 0, 1, 0, 0, 0, 1);
+
     /// <summary>Frame rotation about x by <paramref name="radians"/> (the sign convention of the FITS WCS papers and ERFA).</summary>
     internal static Rotation AboutX(double radians)
     {
@@ -28,7 +30,6 @@ internal readonly struct Rotation
         var (s, c) = Math.SinCos(radians);
         return new Rotation(c, s, 0, -s, c, 0, 0, 0, 1);
     }
-
 
     internal Rotation Times(Rotation b) => new(
         _m00 * b._m00 + _m01 * b._m10 + _m02 * b._m20, _m00 * b._m01 + _m01 * b._m11 + _m02 * b._m21, _m00 * b._m02 + _m01 * b._m12 + _m02 * b._m22,

@@ -18,4 +18,34 @@ public abstract class Projection
 
     internal const double D2R = Math.PI / 180;
     internal const double R2D = 180 / Math.PI;
+
+    /// <summary>Sine and cosine of an angle in degrees, exact at multiples of 90 so poles and quadrants stay exact.</summary>
+    internal static (double Sin, double Cos) SinCosDegrees(double degrees)
+    {
+        var r = Math.IEEERemainder(degrees, 360);
+        return r switch
+        {
+            0 => (0, 1),
+            90 => (1, 0),
+            -90 => (-1, 0),
+            180 or -180 => (0, -1),
+            _ => Math.SinCos(r * D2R),
+        };
+    }
+
+    /// <summary>
+    /// Accepts native coordinates within rounding of [-180, 180] x [-90, 90], clamping them in; false otherwise
+    /// (the same 1e-13 degree slack as the inverse equations' own rounding).
+    /// </summary>
+    internal static bool InNativeRange(ref double phi, ref double theta, double tolerance = 1e-13)
+    {
+        if (!(Math.Abs(phi) <= 180 + tolerance) || !(Math.Abs(theta) <= 90 + tolerance))
+        {
+            phi = theta = double.NaN;
+            return false;
+        }
+        phi = Math.Clamp(phi, -180, 180);
+        theta = Math.Clamp(theta, -90, 90);
+        return true;
+    }
 }

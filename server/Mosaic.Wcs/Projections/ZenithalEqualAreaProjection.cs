@@ -1,6 +1,6 @@
 namespace Mosaic.Wcs.Projections;
 
-/// <summary>ZEA, Paper II section 5.1.6: R = (360/pi) sin((90 - theta)/2) (eq. 68); R &gt; 360/pi has no solution.</summary>
+/// <summary>ZEA, Paper II section 5.1.8: R = (360/pi) sin((90 - theta)/2) (eq. 68); R &gt; 360/pi has no solution.</summary>
 public sealed class ZenithalEqualAreaProjection : ZenithalProjection
 {
     protected override bool TryRadius(double theta, out double r)

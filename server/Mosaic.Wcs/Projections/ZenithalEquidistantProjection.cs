@@ -1,6 +1,6 @@
 namespace Mosaic.Wcs.Projections;
 
-/// <summary>ARC, Paper II section 5.1.5: R = 90 - theta (eq. 64).</summary>
+/// <summary>ARC, Paper II section 5.1.6: R = 90 - theta (eq. 64).</summary>
 public sealed class ZenithalEquidistantProjection : ZenithalProjection
 {
     protected override bool TryRadius(double theta, out double r)

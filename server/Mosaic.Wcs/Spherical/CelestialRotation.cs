@@ -48,7 +48,8 @@ public sealed class CelestialRotation
         if (Math.Abs(ratio) > 1 && Math.Abs(ratio) < 1 + 1e-12) ratio = Math.Sign(ratio);
         if (!(Math.Abs(ratio) <= 1)) throw new WcsHeaderException("LONPOLE", "CRVAL2 and LONPOLE admit no celestial pole");
         var spread = Math.Acos(ratio) * R2D;
-        double first = baseAngle + spread, second = baseAngle - spread;
+        // Both are angles: brought into [-180, 180] an apparently out-of-range one may still be a latitude.
+        double first = Wrap(baseAngle + spread), second = Wrap(baseAngle - spread);
         var firstOk = first is >= -90 - 1e-10 and <= 90 + 1e-10;
         var secondOk = second is >= -90 - 1e-10 and <= 90 + 1e-10;
         if (!firstOk && !secondOk) throw new WcsHeaderException("LONPOLE", "CRVAL2 and LONPOLE admit no celestial pole");
@@ -93,6 +94,8 @@ public sealed class CelestialRotation
         var sinTheta = sd * _sinDeltaP + cd * _cosDeltaP * Math.Cos(da);
         return (phi, Math.Atan2(sinTheta, Math.Sqrt(u * u + v * v)) * R2D);
     }
+
+    private static double Wrap(double degrees) => degrees > 180 ? degrees - 360 : degrees < -180 ? degrees + 360 : degrees;
 
     private static double Normalize(double degrees)
     {

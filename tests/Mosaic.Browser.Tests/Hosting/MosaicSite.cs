@@ -5,13 +5,15 @@ using Mosaic.Browser.Tests.Viewer;
 namespace Mosaic.Browser.Tests.Hosting;
 
 /// <summary>
-/// A data folder with the small synthetic demo field and one unreadable FITS file, the real server serving it, and
-/// Debian's Chromium driven by Playwright.
+/// A data folder with the small synthetic demo field, a small synthetic frame without any WCS and one unreadable
+/// FITS file, the real server serving it, and Debian's Chromium driven by Playwright.
 /// </summary>
 public sealed class MosaicSite : IAsyncLifetime
 {
     public const string DemoFieldId = "demo";
     public const string BrokenFieldFile = "broken.fits";
+    /// <summary>A field of one small image whose header has no celestial WCS at all: pixels yes, sky no.</summary>
+    public const string UnsolvedFieldId = "unsolved";
     private const string Chromium = "/usr/bin/chromium";
 
     private readonly string _root = Path.Combine(Path.GetTempPath(), $"mosaic-browser-{Guid.NewGuid():N}");
@@ -51,6 +53,18 @@ public sealed class MosaicSite : IAsyncLifetime
         await ServerProcess.GenerateDemoAsync(Path.Combine(DataDirectory, DemoFieldId), "small");
         // A file that claims to be FITS but is not: the field list must show it, with why it cannot be read.
         await File.WriteAllTextAsync(Path.Combine(DataDirectory, BrokenFieldFile), "This is not a FITS file: it has no SIMPLE card.\n");
+        // Written by astropy.io.fits (Debian python3-astropy): noise about 100 adu, BUNIT, no WCS keywords.
+        Mosaic.Testing.DebianPython.RunCode(
+            """
+            import sys
+            import numpy as np
+            from astropy.io import fits
+            data = (100 + 5 * np.random.default_rng(7).standard_normal((48, 64))).astype(np.float32)
+            header = fits.Header()
+            header["BUNIT"] = "adu"
+            fits.HDUList([fits.PrimaryHDU(), fits.ImageHDU(data, header=header, name="FRAME")]).writeto(sys.argv[1])
+            """,
+            [Path.Combine(DataDirectory, UnsolvedFieldId + ".fits")]);
 
         _server = await ServerProcess.StartAsync(DataDirectory, Path.Combine(_root, "cache"));
         _demo = await WaitForPyramidsAsync(TimeSpan.FromMinutes(3));

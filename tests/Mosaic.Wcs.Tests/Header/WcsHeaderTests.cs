@@ -45,12 +45,14 @@ public sealed class WcsHeaderTests
         Assert.Equal("CTYPE1", error.Keyword);
     }
 
-    [Fact]
-    public void UnsupportedProjectionNamesIt()
+    [Theory]
+    [InlineData("XPH")]
+    [InlineData("QQQ")]
+    public void UnsupportedProjectionNamesIt(string code)
     {
-        var cards = Cards.Celestial("BON", 10, 20);
+        var cards = Cards.Celestial(code, 10, 20);
         var error = Assert.Throws<NotSupportedException>(() => Wcs.From(Cards.ToHeader(cards)));
-        Assert.Contains("BON", error.Message);
+        Assert.Contains(code, error.Message);
     }
 
     [Fact]
@@ -101,6 +103,17 @@ public sealed class WcsHeaderTests
         // Eq. 188: PC2_1 = (CDELT1/CDELT2) sin(rho), so CD2_1 = CDELT2 * PC2_1 = CDELT1 sin(rho).
         Assert.Equal(-2.5e-4 * Math.Sin(27.5 * Math.PI / 180), h.Cd21, 15);
         AstropyAgreementTests.Check(cards);
+    }
+
+    [Fact]
+    public void ProjectionParameterBeyondPaperIIRangeIsNamed()
+    {
+        // Paper II: ZPN's polynomial runs to PV2_20; a PV2_21 would otherwise be ignored without a word.
+        var cards = Cards.Celestial("ZPN", 10, 20);
+        cards["PV2_1"] = 1.0;
+        cards["PV2_21"] = 1e-9;
+        var error = Assert.Throws<WcsHeaderException>(() => WcsHeader.From(Cards.ToHeader(cards)));
+        Assert.Equal("PV2_21", error.Keyword);
     }
 
     [Fact]
