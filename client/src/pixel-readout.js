@@ -30,7 +30,9 @@ export class PixelReadout {
     this.#xLabel = element.querySelector('[data-role="x"]');
     this.#yLabel = element.querySelector('[data-role="y"]');
     this.#valueLabel = element.querySelector('[data-role="value"]');
-    this.#sky = new SkyReadout(element.querySelector('[data-role="sky"]'));
+    // The side-by-side panes' small readouts have no sky row.
+    const skyRow = element.querySelector('[data-role="sky"]');
+    this.#sky = skyRow === null ? null : new SkyReadout(skyRow);
     this.#probe = probe;
   }
 
@@ -38,7 +40,7 @@ export class PixelReadout {
   setSource(source) {
     this.#forget();
     this.#source = source;
-    this.#sky.setSource(source.sky ?? null, source.skyError ?? null);
+    this.#sky?.setSource(source.sky ?? null, source.skyError ?? null);
     this.#hduLabel.textContent = source.hduName;
     this.#hduLabel.title = `${source.field} · ${source.band} · HDU ${source.hdu}`;
     this.#showNothing();
@@ -68,11 +70,11 @@ export class PixelReadout {
     this.#showPixel(px, py);
     if (!inside) {
       this.#showValue('outside the image', 'outside');
-      this.#sky.showNothing();
+      this.#sky?.showNothing();
       return;
     }
     this.#showValue('…', 'pending');
-    this.#sky.showPending();
+    this.#sky?.showPending();
     this.#pending = { source: this.#source, x: at.x, y: at.y, sequence: this.#sequence };
     this.#schedule();
   }
@@ -100,7 +102,7 @@ export class PixelReadout {
     } catch (error) {
       if (!controller.signal.aborted && request.sequence === this.#sequence) {
         this.#showValue(`no value: ${error.detail || error.message}`, 'error');
-        this.#sky.showNothing();
+        this.#sky?.showNothing();
       }
     } finally {
       if (this.#inFlight === controller) this.#inFlight = null;
@@ -121,7 +123,7 @@ export class PixelReadout {
 
   #showAnswer(answer) {
     this.#showPixel(answer.x, answer.y);
-    this.#sky.showAnswer(answer);
+    this.#sky?.showAnswer(answer);
     if (answer.channels) {
       // A composite: every band's value, masked where that band is.
       const text = answer.channels.map((c) => `${c.short} ${c.value === null ? 'masked' : formatPixelValue(c.value)}`).join(' · ');
@@ -140,7 +142,7 @@ export class PixelReadout {
 
   #showNothing() {
     this.#showPixel(null, null);
-    this.#sky.showNothing();
+    this.#sky?.showNothing();
     this.#showValue('–', 'none');
   }
 
