@@ -63,10 +63,12 @@ export function probePixel({ field, band, hdu }, x, y, signal) {
 
 /**
  * The pixel at a sky position typed by a person (sexagesimal or decimal degrees, ICRS), on whichever HDU of the band
- * holds it: the answer's `hdu` says which, `atX`/`atY` where on it.
+ * holds it: the answer's `hdu` says which, `atX`/`atY` where on it. With `hdu: 'canvas'` it is looked up on the
+ * band's whole field, and the answer's `canvas` ({x, y}) says where the position is on that.
  */
-export function probePosition({ field, band }, position, signal) {
+export function probePosition({ field, band, hdu = null }, position, signal) {
   const query = new URLSearchParams({ band, position });
+  if (hdu !== null) query.set('hdu', String(hdu));
   return getJson(`api/fields/${encodeURIComponent(field)}/probe?${query}`, signal);
 }
 

@@ -28,6 +28,9 @@ import { SkySync } from './sky-sync.js';
 import { SkyGrid } from './sky-grid.js';
 import { Compass } from './compass.js';
 import { ScaleBar } from './scale-bar.js';
+import { WHOLE_FIELD, isWholeField, wholeFieldEntry, bandEntries } from './whole-field.js';
+import { ChipOutlines } from './chip-outlines.js';
+import { OutlineToggle } from './outline-toggle.js';
 
 const state = ViewState.fromUrl();
 const imageView = new ImageView(document.getElementById('image-view'));
@@ -54,6 +57,8 @@ const skySync = new SkySync();
 const grid = new SkyGrid(imageView);
 const compass = new Compass(document.getElementById('compass'));
 const scaleBar = new ScaleBar(document.getElementById('scale-bar'));
+const outlines = new ChipOutlines(imageView);
+const outlineToggle = new OutlineToggle(document.getElementById('outline-toggle'), document.getElementById('canvas-note'));
 
 let fields = [];
 let field = null;
@@ -85,8 +90,13 @@ function pickBand(candidate, name) {
     ?? null;
 }
 
+// The whole field when asked for or when nothing is (a band with a canvas opens on it); a chip when one is named,
+// so old links keep opening their chip.
 function pickHdu(band, index, fallback) {
+  const whole = wholeFieldEntry(band);
+  if (whole !== null && (index === null || isWholeField(index))) return whole;
   return band.hdus.find((hdu) => hdu.index === index)
+    ?? whole
     ?? band.hdus.find((hdu) => hdu.index === fallback)
     ?? band.hdus[0];
 }
@@ -138,9 +148,12 @@ function open(candidate, { band: bandName = null, hdu: hduIndex = null, view = n
 
   fieldPicker.setFields(fields, candidate.id);
   bandPicker.setBands(candidate.bands, colourMode ? state.current.band ?? band.name : band.name);
-  hduPicker.setHdus(band.hdus, hdu.index);
+  hduPicker.setHdus(bandEntries(band), hdu.index);
   state.update(colourMode ? { field: candidate.id, hdu: hdu.index, band: state.current.band ?? candidate.defaultBand } : source);
   colourControls.setBands(readableNames(candidate));
+  const wholeField = isWholeField(hdu.index);
+  outlines.show(wholeField ? hdu.chips : []);
+  outlineToggle.setCanvas(wholeField ? hdu : null);
 
   shown = { ...source, ready: hdu.pyramid?.state === 'ready', sky: hdu.sky ?? null };
   shownGeometry = null;
@@ -157,7 +170,8 @@ function open(candidate, { band: bandName = null, hdu: hduIndex = null, view = n
 function showSky(source, hdu) {
   const hasSky = hdu.sky !== null && hdu.sky !== undefined;
   if (mark !== null && !(mark.field === source.field && mark.band === source.band && mark.hdu === source.hdu)) clearMark();
-  gotoBox.setSource({ field: source.field, band: source.band });
+  // On the whole field the server finds the chip and says where the position is on the field's own grid.
+  gotoBox.setSource({ field: source.field, band: source.band, hdu: isWholeField(source.hdu) ? WHOLE_FIELD : null });
   gridToggle.setAvailable(hasSky, hdu.skyError);
   pixelScale = hasSky && Number.isFinite(hdu.sky.pixelScale) ? hdu.sky.pixelScale : null;
   skySync.setSource(source, hasSky);
@@ -192,6 +206,12 @@ function setGrid(on) {
   state.update({ grid: on });
 }
 
+function setOutlines(on) {
+  outlines.on = on;
+  outlineToggle.pressed = on;
+  state.update({ outlines: on });
+}
+
 function clearMark() {
   if (mark === null) return;
   imageView.removeOverlay(mark.marker);
@@ -199,10 +219,33 @@ function clearMark() {
   gotoBox.marked = false;
 }
 
+function placeMark(x, y, text, target) {
+  const marker = createPositionMarker(x, y, text);
+  imageView.addOverlay(marker);
+  mark = { marker, ...target };
+  gotoBox.marked = true;
+}
+
+// On the whole field the view moves to where the position is on it, whichever chip holds it.
+function goToOnWholeField(answer) {
+  const at = answer.canvas;
+  if (!at || !Number.isFinite(at.x) || !Number.isFinite(at.y)) {
+    message.show('Go to: the server did not say where that position is on the whole field.', 'goto');
+    return;
+  }
+  clearMark();
+  imageView.centreOn(at.x, at.y);
+  placeMark(at.x, at.y, answer.text, { field: shown.field, band: shown.band, hdu: WHOLE_FIELD });
+}
+
 // The go-to box found the position: on another chip that chip opens, centred there; the mark goes on it.
 function goTo(answer) {
   message.clear('goto');
   if (shown === null || field === null) return;
+  if (isWholeField(shown.hdu)) {
+    goToOnWholeField(answer);
+    return;
+  }
   const target = { field: shown.field, band: shown.band, hdu: answer.hdu };
   clearMark();
   if (answer.hdu !== shown.hdu) {
@@ -214,15 +257,14 @@ function goTo(answer) {
   } else {
     imageView.centreOn(answer.atX, answer.atY);
   }
-  const marker = createPositionMarker(answer.atX, answer.atY, answer.text);
-  imageView.addOverlay(marker);
-  mark = { marker, ...target };
-  gotoBox.marked = true;
+  placeMark(answer.atX, answer.atY, answer.text, target);
 }
 
 /** The same HDU index in another band, or null when that band has none. */
 function hduOf(bandName, index) {
-  return field.bands.find((b) => b.name === bandName)?.hdus.find((h) => h.index === index) ?? null;
+  const band = field.bands.find((b) => b.name === bandName);
+  if (band === undefined) return null;
+  return isWholeField(index) ? wholeFieldEntry(band) : band.hdus.find((h) => h.index === index) ?? null;
 }
 
 // Puts on screen what the state asks for: one image (a band or the composite), the three bands side by side, or
@@ -272,9 +314,11 @@ function render(view = null) {
   const comparing = layout.view === 'swipe' || layout.view === 'blink';
   const base = comparing ? layers.first : colourMode ? COMPOSITE_LAYER : shown.band;
   const baseUrl = layerUrl(base, shown.hdu);
-  const geometry = `${hdu.width}x${hdu.height}x${hdu.maxZoom}`;
+  const wholeField = isWholeField(shown.hdu);
+  const geometry = `${shown.hdu}:${hdu.width}x${hdu.height}x${hdu.maxZoom}`;
   if (shownGeometry !== geometry || start !== null) {
-    imageView.show({ tileUrl: baseUrl, width: hdu.width, height: hdu.height, maxZoom: hdu.maxZoom }, start);
+    const maskShapes = wholeField ? hdu.chips.map((chip) => chip.outline) : null;
+    imageView.show({ tileUrl: baseUrl, width: hdu.width, height: hdu.height, maxZoom: hdu.maxZoom, maskShapes }, start);
     shownGeometry = geometry;
   } else {
     imageView.restyle(baseUrl);
@@ -289,7 +333,7 @@ function render(view = null) {
   const readBand = base === COMPOSITE_LAYER ? shown.band : base;
   readout.setSource({
     field: field.id, band: readBand, hdu: shown.hdu, hduName: hdu.name, width: hdu.width, height: hdu.height,
-    sky: hdu.sky ?? null, skyError: hdu.skyError ?? null,
+    sky: hdu.sky ?? null, skyError: hdu.skyError ?? null, wholeField,
     channels: base === COMPOSITE_LAYER ? CHANNELS.map((channel) => ({ channel, band: channels[channel] })) : undefined,
   });
   resolveComposite();
@@ -421,14 +465,17 @@ async function loadPalettes() {
 }
 
 function watchPreparation(band) {
-  if (!band.hdus.some(isPreparing)) {
+  if (!bandEntries(band).some(isPreparing)) {
     watcher.stop();
     return;
   }
   watcher.watch(field.id, {
     onField: onFieldPolled,
     onError: (error) => message.show(`Cannot reach the server (${error.message}); trying again.`, 'connection'),
-    isDone: (polled) => !(polled.bands.find((b) => b.name === shown?.band)?.hdus.some(isPreparing) ?? false),
+    isDone: (polled) => {
+      const band = polled.bands.find((b) => b.name === shown?.band);
+      return !(band && bandEntries(band).some(isPreparing));
+    },
   });
 }
 
@@ -438,9 +485,9 @@ function onFieldPolled(polled) {
   field = polled;
   fields = fields.map((known) => (known.id === polled.id ? polled : known));
   const band = polled.bands.find((b) => b.name === shown.band);
-  const hdu = band?.hdus.find((h) => h.index === shown.hdu);
+  const hdu = band ? bandEntries(band).find((h) => h.index === shown.hdu) : undefined;
   if (!band || !hdu) return;
-  hduPicker.setHdus(band.hdus, hdu.index);
+  hduPicker.setHdus(bandEntries(band), hdu.index);
   progress.show(hdu.name, hdu.pyramid);
   const ready = hdu.pyramid?.state === 'ready';
   if (ready && !shown.ready) imageView.refreshTiles();
@@ -494,6 +541,7 @@ function wireEvents() {
     message.clear('goto');
   });
   gridToggle.addEventListener('toggle', (event) => setGrid(event.detail));
+  outlineToggle.addEventListener('toggle', (event) => setOutlines(event.detail));
   skySync.addEventListener('sky', (event) => onSky(event.detail));
   skySync.addEventListener('clear', (event) => onSkyCleared(event.detail));
   imageView.addEventListener('pointer', (event) => readout.pointAt(event.detail));
@@ -516,6 +564,7 @@ function wireEvents() {
 async function start() {
   wireEvents();
   setGrid(state.current.grid);
+  setOutlines(state.current.outlines);
   panel.limits.fitEnabled = false;
   panel.show(state.current.display, null);
   paintMask(state.current.display);

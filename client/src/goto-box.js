@@ -14,7 +14,7 @@ export class GotoBox extends EventTarget {
   #source = null;
   #inFlight = null;
 
-  /** `lookup(source, text, signal)` asks the server; `source` is {field, band}. */
+  /** `lookup(source, text, signal)` asks the server; `source` is {field, band, hdu} (hdu: null, or 'canvas'). */
   constructor(form, lookup) {
     super();
     this.#form = form;
@@ -33,7 +33,7 @@ export class GotoBox extends EventTarget {
     this.setSource(null);
   }
 
-  /** The band positions are looked up in ({field, band}), or null while there is none. */
+  /** The band positions are looked up in ({field, band, hdu}), or null while there is none. */
   setSource(source) {
     this.#inFlight?.abort();
     this.#inFlight = null;

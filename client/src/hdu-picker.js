@@ -1,5 +1,7 @@
-// The image HDUs (chips) of the band being viewed, each with how far its tiles are prepared.
+// The image HDUs (chips) of the band being viewed, each with how far its tiles are prepared; first, when the band
+// has one, its whole camera field.
 import { fillSelect } from './select-options.js';
+import { WHOLE_FIELD, isWholeField } from './whole-field.js';
 
 function stateSuffix(pyramid) {
   switch (pyramid?.state) {
@@ -14,23 +16,34 @@ function stateSuffix(pyramid) {
   }
 }
 
-/** Fires `pick` with the chosen HDU index (a number) in `detail`. */
+function describe(hdu) {
+  const failure = hdu.pyramid?.error ? ` — ${hdu.pyramid.error}` : '';
+  if (!isWholeField(hdu.index)) return `HDU ${hdu.index}: ${hdu.width} × ${hdu.height} pixels, BITPIX ${hdu.bitpix}${failure}`;
+  const left = hdu.excluded.length > 0 ? `; ${hdu.excluded.length} left off` : '';
+  return `All ${hdu.chips.length} chips on one sky grid of ${hdu.width} × ${hdu.height} pixels${left}${failure}`;
+}
+
+/** Fires `pick` with the chosen HDU index (a number, or 'canvas' for the whole field) in `detail`. */
 export class HduPicker extends EventTarget {
   #select;
 
   constructor(select) {
     super();
     this.#select = select;
-    select.addEventListener('change', () => this.dispatchEvent(new CustomEvent('pick', { detail: Number(select.value) })));
+    select.addEventListener('change', () => {
+      const detail = select.value === WHOLE_FIELD ? WHOLE_FIELD : Number(select.value);
+      this.dispatchEvent(new CustomEvent('pick', { detail }));
+    });
   }
 
+  /** `hdus` as whole-field.js bandEntries gives them. */
   setHdus(hdus, selectedIndex) {
     fillSelect(
       this.#select,
       hdus.map((hdu) => ({
         value: hdu.index,
         label: `${hdu.name}${stateSuffix(hdu.pyramid)}`,
-        title: `HDU ${hdu.index}: ${hdu.width} × ${hdu.height} pixels, BITPIX ${hdu.bitpix}${hdu.pyramid?.error ? ` — ${hdu.pyramid.error}` : ''}`,
+        title: describe(hdu),
       })),
       selectedIndex,
     );

@@ -34,6 +34,7 @@ export class ImageView extends EventTarget {
   #geometry = null;
   #bounds = null;
   #tiles = null;
+  #mask = null;
   #tileUrl = null;
   #pointer = null;
   // Layers drawn over the image (grid, marks): carried over to each new map.
@@ -160,16 +161,21 @@ export class ImageView extends EventTarget {
   /**
    * Shows the tiles at `tileUrl` of an image of `width` x `height` pixels whose native zoom is `maxZoom`. With a
    * `view` ({x, y, z}) it goes there; without one it keeps the current view when the geometry is unchanged (another
-   * band of the same chip) and shows the whole image otherwise.
+   * band of the same chip) and shows the whole image otherwise. `maskShapes` (outlines in FITS pixels) limits the
+   * masked colour to the chips of a whole field; null spreads it over the whole image.
    */
-  show({ tileUrl, width, height, maxZoom }, view = null) {
+  show({ tileUrl, width, height, maxZoom, maskShapes = null }, view = null) {
     const geometry = { width, height, maxZoom };
     const keep = sameGeometry(this.#geometry, geometry);
     if (!keep) this.#createMap(geometry);
     if (this.#tiles === null) {
-      this.#tiles = this.#createTiles(tileUrl, geometry).addTo(this.#map);
-    } else if (this.#tileUrl !== tileUrl) {
-      this.#tiles.setUrl(tileUrl);
+      this.#tiles = this.#createTiles(tileUrl, geometry, maskShapes).addTo(this.#map);
+    } else {
+      this.#mask.setShapes(maskShapes);
+      if (this.#tileUrl !== tileUrl) {
+        this.#tiles.setUrl(tileUrl, true);
+        this.#reloadTiles();
+      }
     }
     this.#tileUrl = tileUrl;
     if (view !== null) {
@@ -181,7 +187,16 @@ export class ImageView extends EventTarget {
 
   /** Requests every tile again: after the pyramid of the shown HDU became ready. */
   refreshTiles() {
-    this.#tiles?.redraw();
+    this.#reloadTiles();
+  }
+
+  // Leaflet 1.9.4's GridLayer.redraw takes the map's zoom unrounded as the tile level, so at a fractional zoom it
+  // would ask for tiles of level 2.25; taking the layer off the map and back goes through its view reset, which
+  // rounds. The mask layer follows the image layer's tile events, so it empties and refills with it.
+  #reloadTiles() {
+    if (this.#tiles === null || this.#map === null) return;
+    this.#tiles.remove();
+    this.#tiles.addTo(this.#map);
   }
 
   /** Goes to `view` ({x, y, z}) at once, firing no `moving`: for a view that follows another. */
@@ -239,6 +254,7 @@ export class ImageView extends EventTarget {
       this.#compare = null;
       this.#map.remove();
       this.#tiles = null;
+      this.#mask = null;
       this.#pointer = null;
       this.#setKeyboardProbe(false);
     }
@@ -303,7 +319,7 @@ export class ImageView extends EventTarget {
     });
   }
 
-  #createTiles(tileUrl, geometry) {
+  #createTiles(tileUrl, geometry, maskShapes) {
     const grid = {
       tileSize: 256,
       noWrap: true,
@@ -315,7 +331,7 @@ export class ImageView extends EventTarget {
       keepBuffer: 2,
     };
     const layer = new TileLayer(tileUrl, { ...grid, className: 'image-tiles' });
-    new MaskLayer(layer, { ...grid, geometry, pane: MASK_PANE, className: 'mask-tiles' }).addTo(this.#map);
+    this.#mask = new MaskLayer(layer, { ...grid, geometry, shapes: maskShapes, pane: MASK_PANE, className: 'mask-tiles' }).addTo(this.#map);
     this.#compare = new CompareLayer(this.#map, this.#container, { ...grid, geometry });
     this.#compare.addEventListener('divider', (e) => this.dispatchEvent(new CustomEvent('divider', { detail: e.detail })));
     this.#compare.set(this.#compareSpec);

@@ -1,6 +1,7 @@
 // Shows the pixel under the pointer: its 1-based FITS x and y, at once, and its value and sky position, asked from
 // the server with at most one request in flight; a request made stale by a newer position or another HDU is dropped
-// or ignored.
+// or ignored. On the whole field the answer names the original chip under the point, its own pixel and its original
+// value (never the resampled one), or says the point is in a gap between chips; the field's own pixel shows beside.
 import { probePixel } from './api.js';
 import { SkyReadout } from './sky-readout.js';
 import { containingPixel } from './pixel-crs.js';
@@ -14,6 +15,9 @@ export class PixelReadout {
   #xLabel;
   #yLabel;
   #valueLabel;
+  #canvasPair;
+  #canvasX;
+  #canvasY;
   #sky;
   #probe;
   #source = null;
@@ -30,19 +34,24 @@ export class PixelReadout {
     this.#xLabel = element.querySelector('[data-role="x"]');
     this.#yLabel = element.querySelector('[data-role="y"]');
     this.#valueLabel = element.querySelector('[data-role="value"]');
-    // The side-by-side panes' small readouts have no sky row.
+    this.#canvasPair = element.querySelector('[data-role="canvas"]');
+    this.#canvasX = element.querySelector('[data-role="canvas-x"]');
+    this.#canvasY = element.querySelector('[data-role="canvas-y"]');
+    // The side-by-side panes' small readouts have no sky row and no whole-field pixel.
     const skyRow = element.querySelector('[data-role="sky"]');
     this.#sky = skyRow === null ? null : new SkyReadout(skyRow);
     this.#probe = probe;
   }
 
-  /** The HDU being viewed: {field, band, hdu, hduName, width, height, sky, skyError} (sky null: no celestial WCS), and `channels` for a composite's bands. */
+  /**
+   * The HDU being viewed: {field, band, hdu, hduName, width, height, sky, skyError, wholeField} (sky null: no
+   * celestial WCS; wholeField true: hdu is the band's canvas), and `channels` for a composite's bands.
+   */
   setSource(source) {
     this.#forget();
     this.#source = source;
     this.#sky?.setSource(source.sky ?? null, source.skyError ?? null);
-    this.#hduLabel.textContent = source.hduName;
-    this.#hduLabel.title = `${source.field} · ${source.band} · HDU ${source.hdu}`;
+    if (this.#canvasPair !== null) this.#canvasPair.hidden = !source.wholeField;
     this.#showNothing();
   }
 
@@ -67,8 +76,18 @@ export class PixelReadout {
     this.#forget();
     const inside = px >= 1 && py >= 1 && px <= this.#source.width && py <= this.#source.height;
     this.#current = { px, py, inside };
-    this.#showPixel(px, py);
+    if (this.#source.wholeField) {
+      // The chip's own pixel comes with the answer; until then the last one stays, dimmed.
+      this.#showCanvasPixel(px, py);
+      this.#hduLabel.dataset.stale = 'true';
+    } else {
+      this.#showPixel(px, py);
+    }
     if (!inside) {
+      if (this.#source.wholeField) {
+        this.#showChip(null);
+        this.#showPixel(null, null);
+      }
       this.#showValue('outside the image', 'outside');
       this.#sky?.showNothing();
       return;
@@ -122,8 +141,30 @@ export class PixelReadout {
   }
 
   #showAnswer(answer) {
+    if (this.#source.wholeField) {
+      this.#showWholeFieldAnswer(answer);
+      return;
+    }
     this.#showPixel(answer.x, answer.y);
     this.#sky?.showAnswer(answer);
+    this.#showMeasured(answer);
+  }
+
+  // The sky readout's exact point is the one on the image viewed (the canvas); the chip's own is on the chip label.
+  #showWholeFieldAnswer(answer) {
+    const onChip = answer.hdu !== null && answer.hdu !== undefined;
+    this.#sky?.showAnswer({ ...answer, atX: answer.canvas?.x ?? null, atY: answer.canvas?.y ?? null });
+    this.#showChip(onChip ? answer : null, !onChip);
+    if (!onChip) {
+      this.#showPixel(null, null);
+      this.#showValue('no chip here', 'gap');
+      return;
+    }
+    this.#showPixel(answer.x, answer.y);
+    this.#showMeasured(answer);
+  }
+
+  #showMeasured(answer) {
     if (answer.channels) {
       // A composite: every band's value, masked where that band is.
       const text = answer.channels.map((c) => `${c.short} ${c.value === null ? 'masked' : formatPixelValue(c.value)}`).join(' · ');
@@ -141,9 +182,42 @@ export class PixelReadout {
   }
 
   #showNothing() {
+    this.#showChip(null);
+    this.#showCanvasPixel(null, null);
     this.#showPixel(null, null);
     this.#sky?.showNothing();
     this.#showValue('–', 'none');
+  }
+
+  /**
+   * The HDU label: the chip under the point on the whole field ({hdu, hduName, atX, atY} of a probe answer), "gap"
+   * between chips, else the name of the HDU viewed.
+   */
+  #showChip(chip, gap = false) {
+    const label = this.#hduLabel;
+    const source = this.#source;
+    delete label.dataset.stale;
+    delete label.dataset.atX;
+    delete label.dataset.atY;
+    label.dataset.kind = gap ? 'gap' : chip === null ? 'source' : 'chip';
+    if (chip !== null) {
+      label.textContent = chip.hduName;
+      label.title = `${source.field} · ${source.band} · HDU ${chip.hdu}, on the whole field`;
+      label.dataset.atX = String(chip.atX ?? '');
+      label.dataset.atY = String(chip.atY ?? '');
+    } else if (gap) {
+      label.textContent = 'gap';
+      label.title = 'Between the chips of the whole field: no chip took light here';
+    } else {
+      label.textContent = source?.hduName ?? '–';
+      label.title = source === null ? '' : `${source.field} · ${source.band} · ${source.wholeField ? 'all chips' : `HDU ${source.hdu}`}`;
+    }
+  }
+
+  #showCanvasPixel(px, py) {
+    if (this.#canvasX === null || this.#canvasY === null) return;
+    this.#canvasX.textContent = px === null ? '–' : String(px);
+    this.#canvasY.textContent = py === null ? '–' : String(py);
   }
 
   #showPixel(px, py) {

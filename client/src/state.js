@@ -3,13 +3,15 @@
 import { EMPTY_DISPLAY, normaliseDisplay, parseDisplayQuery, displayParameters, sameDisplay } from './display-query.js';
 import { EMPTY_COLOUR, normaliseColour, parseColourQuery, colourParameters, sameColour } from './colour-query.js';
 import { EMPTY_LAYOUT, normaliseLayout, parseLayoutQuery, layoutParameters, sameLayout } from './layout-query.js';
+import { WHOLE_FIELD } from './whole-field.js';
 
 const EMPTY = Object.freeze({
-  field: null, band: null, hdu: null, x: null, y: null, z: null, grid: false, display: EMPTY_DISPLAY, colour: EMPTY_COLOUR, layout: EMPTY_LAYOUT,
+  field: null, band: null, hdu: null, x: null, y: null, z: null, grid: false, outlines: false,
+  display: EMPTY_DISPLAY, colour: EMPTY_COLOUR, layout: EMPTY_LAYOUT,
 });
 const VIEW_KEYS = Object.freeze(['field', 'band', 'hdu', 'x', 'y', 'z']);
-// Overlays shown over the image: in the URL only while on (`grid=1`).
-const FLAG_KEYS = Object.freeze(['grid']);
+// Overlays shown over the image: in the URL only while on (`grid=1`, `outlines=1`).
+const FLAG_KEYS = Object.freeze(['grid', 'outlines']);
 
 // A hundredth of a pixel and of a zoom level is finer than anyone can see, and keeps links short.
 const DECIMALS = 2;
@@ -19,9 +21,16 @@ function parseText(value) {
   return text ? text : null;
 }
 
-function parseIndex(value) {
+// An HDU index, or `canvas` (any case) for the whole field.
+function parseHdu(value) {
   const text = value?.trim();
+  if (text && text.toLowerCase() === WHOLE_FIELD) return WHOLE_FIELD;
   return text && /^\d{1,6}$/.test(text) ? Number(text) : null;
+}
+
+function normaliseHdu(hdu) {
+  if (hdu === WHOLE_FIELD) return WHOLE_FIELD;
+  return Number.isInteger(hdu) && hdu >= 0 ? hdu : null;
 }
 
 function parseNumber(value) {
@@ -40,11 +49,12 @@ function normalise(state) {
   return Object.freeze({
     field: typeof state.field === 'string' && state.field !== '' ? state.field : null,
     band: typeof state.band === 'string' && state.band !== '' ? state.band : null,
-    hdu: Number.isInteger(state.hdu) && state.hdu >= 0 ? state.hdu : null,
+    hdu: normaliseHdu(state.hdu),
     x: Number.isFinite(state.x) ? round(state.x) : null,
     y: Number.isFinite(state.y) ? round(state.y) : null,
     z: Number.isFinite(state.z) ? round(state.z) : null,
     grid: state.grid === true,
+    outlines: state.outlines === true,
     display: normaliseDisplay(state.display ?? EMPTY_DISPLAY),
     colour: normaliseColour(state.colour ?? EMPTY_COLOUR),
     layout: normaliseLayout(state.layout ?? EMPTY_LAYOUT),
@@ -52,20 +62,22 @@ function normalise(state) {
 }
 
 /**
- * Reads a view from a URL query such as `?field=demo&band=red&hdu=3&x=1024.5&y=2048.5&z=3&grid=1&stretch=log&a=300`:
- * the display and colour parameters are those of the tile URLs, except that `masked` is the colour the page paints
- * masked pixels in; the layout parameters (layout-query.js) are the page's own.
+ * Reads a view from a URL query such as `?field=demo&band=red&hdu=3&x=1024.5&y=2048.5&z=3&grid=1&outlines=1&stretch=log&a=300`
+ * (`hdu=canvas`: the band's whole field): the display and colour parameters are those of the tile URLs, except
+ * that `masked` is the colour the page paints masked pixels in; the layout parameters (layout-query.js) are the
+ * page's own.
  */
 export function parseViewQuery(search) {
   const query = new URLSearchParams(search);
   return normalise({
     field: parseText(query.get('field')),
     band: parseText(query.get('band')),
-    hdu: parseIndex(query.get('hdu')),
+    hdu: parseHdu(query.get('hdu')),
     x: parseNumber(query.get('x')),
     y: parseNumber(query.get('y')),
     z: parseNumber(query.get('z')),
     grid: query.get('grid')?.trim() === '1',
+    outlines: query.get('outlines')?.trim() === '1',
     display: parseDisplayQuery(query),
     colour: parseColourQuery(query),
     layout: parseLayoutQuery(query),

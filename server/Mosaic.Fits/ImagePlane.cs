@@ -1,46 +1,34 @@
-using System.Buffers;
-using System.Buffers.Binary;
-using System.Runtime.InteropServices;
-using Microsoft.Win32.SafeHandles;
-using Mosaic.Fits.Pixels;
-
 namespace Mosaic.Fits;
 
 /// <summary>
-/// One 2-D plane of an image HDU, read on demand with positional reads (never memory-mapped, so a file truncated
-/// under us is an exception, not a SIGBUS). Coordinates here are 0-based: column x in [0, Width), stored row y in
-/// [0, Height), where row 0 is FITS y = 1. Thread-safe.
+/// One 2-D plane of pixel values, read on demand. Coordinates here are 0-based: column x in [0, Width), stored row y
+/// in [0, Height), where row 0 is FITS y = 1. Values are physical (scaling applied), NaN where masked. Implementations
+/// are thread-safe. The argument checks live here, so a subclass's cores only ever see valid, non-empty requests.
 /// </summary>
-public sealed class ImagePlane
+public abstract class ImagePlane
 {
-    /// <summary>Bytes per positional read on the streaming path: large enough for GB/s, small enough to stay in cache.</summary>
-    private const int ChunkBytes = 1 << 20;
-
-    private readonly SampleScaling _scaling;
-
-    // CONTRACT (filled in by the FITS reader work): constructor is internal to the library.
-    internal ImagePlane(SafeFileHandle handle, string filePath, int hduIndex, int bitPix, int width, int height,
-        double bScale, double bZero, long? blank, long dataOffset)
+    protected ImagePlane(string filePath, int hduIndex, int bitPix, int width, int height)
     {
-        Handle = handle; FilePath = filePath; HduIndex = hduIndex; BitPix = bitPix; Width = width; Height = height;
-        BScale = bScale; BZero = bZero; Blank = blank; DataOffset = dataOffset;
-        _scaling = new SampleScaling(bitPix, bScale, bZero, blank);
+        ArgumentNullException.ThrowIfNull(filePath);
+        ArgumentOutOfRangeException.ThrowIfNegativeOrZero(width);
+        ArgumentOutOfRangeException.ThrowIfNegativeOrZero(height);
+        if (bitPix is not (8 or 16 or 32 or 64 or -32 or -64))
+            throw new ArgumentOutOfRangeException(nameof(bitPix), bitPix, "BITPIX must be 8, 16, 32, 64, -32 or -64.");
+        FilePath = filePath; HduIndex = hduIndex; BitPix = bitPix; Width = width; Height = height;
     }
 
-    internal SafeFileHandle Handle { get; }
     public string FilePath { get; }
+
+    /// <summary>The HDU this plane belongs to (0 is the primary); negative for a plane that is not one HDU's data.</summary>
     public int HduIndex { get; }
+
+    /// <summary>The BITPIX of the values as the data define them (for a compressed image, the original ZBITPIX).</summary>
     public int BitPix { get; }
+
     public int Width { get; }
     public int Height { get; }
-    public double BScale { get; }
-    public double BZero { get; }
-    public long? Blank { get; }
-    /// <summary>Byte offset of this plane's first pixel in the file.</summary>
-    public long DataOffset { get; }
-    public int BytesPerPixel => Math.Abs(BitPix) / 8;
 
-    /// <summary>Physical values (BZERO + BSCALE * stored) of row y, columns [x, x + destination.Length); NaN where BLANK or NaN.</summary>
+    /// <summary>Physical values of row y, columns [x, x + destination.Length); NaN where BLANK or NaN.</summary>
     public void ReadRow(int y, int x, Span<float> destination)
     {
         ArgumentOutOfRangeException.ThrowIfNegative(y);
@@ -50,7 +38,8 @@ public sealed class ImagePlane
         if (destination.Length > Width - x)
             throw new ArgumentOutOfRangeException(nameof(destination), destination.Length,
                 $"columns [{x}, {x + (long)destination.Length}) run past the row width {Width}.");
-        ReadSamples((long)y * Width + x, destination);
+        if (destination.IsEmpty) return;
+        ReadRowCore(y, x, destination);
     }
 
     /// <summary>Full-width rows [y, y + rowCount) into destination (rowCount * Width floats), row y first.</summary>
@@ -63,7 +52,8 @@ public sealed class ImagePlane
         var needed = (long)rowCount * Width;
         if (destination.Length < needed)
             throw new ArgumentOutOfRangeException(nameof(destination), destination.Length, $"{rowCount} rows need {needed} floats.");
-        ReadSamples((long)y * Width, destination[..(int)needed]);
+        if (rowCount == 0) return;
+        ReadRowsCore(y, rowCount, destination[..(int)needed]);
     }
 
     /// <summary>One physical value in double precision (for BITPIX 32, 64, -64 a float would round); NaN where masked.</summary>
@@ -73,68 +63,15 @@ public sealed class ImagePlane
         ArgumentOutOfRangeException.ThrowIfGreaterThanOrEqual(x, Width);
         ArgumentOutOfRangeException.ThrowIfNegative(y);
         ArgumentOutOfRangeException.ThrowIfGreaterThanOrEqual(y, Height);
-        Span<byte> raw = stackalloc byte[8];
-        raw = raw[..BytesPerPixel];
-        ReadExactly(raw, DataOffset + ((long)y * Width + x) * BytesPerPixel);
-        return SampleDecoder.DecodeOne(BitPix, raw, _scaling);
+        return ReadValueCore(x, y);
     }
 
-    private void ReadSamples(long firstSample, Span<float> destination)
-    {
-        if (destination.IsEmpty) return;
-        var offset = DataOffset + firstSample * BytesPerPixel;
+    /// <summary>Called with 0 ≤ y &lt; Height, 0 ≤ x, a non-empty destination and x + destination.Length ≤ Width.</summary>
+    protected abstract void ReadRowCore(int y, int x, Span<float> destination);
 
-        if (BitPix == -32 && _scaling.Mode == ScalingMode.Identity)
-        {
-            // Stored floats need only a byte swap: read straight into the destination, in spans a byte count can index.
-            const int DirectFloats = 1 << 24;
-            for (var done = 0; done < destination.Length; done += DirectFloats)
-            {
-                var part = destination.Slice(done, Math.Min(DirectFloats, destination.Length - done));
-                ReadExactly(MemoryMarshal.AsBytes(part), offset + (long)done * sizeof(float));
-                var words = MemoryMarshal.Cast<float, uint>(part);
-                BinaryPrimitives.ReverseEndianness(words, words);
-            }
-            return;
-        }
+    /// <summary>Called with rowCount ≥ 1, rows inside the plane and destination exactly rowCount * Width long.</summary>
+    protected abstract void ReadRowsCore(int y, int rowCount, Span<float> destination);
 
-        var perChunk = ChunkBytes / BytesPerPixel;
-        var scratch = ArrayPool<byte>.Shared.Rent((int)Math.Min(ChunkBytes, (long)destination.Length * BytesPerPixel));
-        try
-        {
-            for (var done = 0; done < destination.Length; done += perChunk)
-            {
-                var count = Math.Min(perChunk, destination.Length - done);
-                var chunk = scratch.AsSpan(0, count * BytesPerPixel);
-                ReadExactly(chunk, offset + (long)done * BytesPerPixel);
-                SampleDecoder.Decode(BitPix, chunk, destination.Slice(done, count), _scaling);
-            }
-        }
-        finally
-        {
-            ArrayPool<byte>.Shared.Return(scratch);
-        }
-    }
-
-    private void ReadExactly(Span<byte> buffer, long offset)
-    {
-        ObjectDisposedException.ThrowIf(Handle.IsClosed, this);
-        var done = 0;
-        while (done < buffer.Length)
-        {
-            int n;
-            try
-            {
-                n = RandomAccess.Read(Handle, buffer[done..], offset + done);
-            }
-            catch (IOException e)
-            {
-                throw new FitsFormatException(FilePath, HduIndex, null, $"cannot read pixel data at byte {offset + done}: {e.Message}", e);
-            }
-            if (n == 0)
-                throw new FitsFormatException(FilePath, HduIndex, null,
-                    $"truncated data: the file ends before byte {offset + buffer.Length} (it was cut short or rewritten after opening)");
-            done += n;
-        }
-    }
+    /// <summary>Called with (x, y) inside the plane.</summary>
+    protected abstract double ReadValueCore(int x, int y);
 }

@@ -2,6 +2,8 @@ using Mosaic.Server.Hosting;
 
 if (args is ["generate-demo", .. var demoArgs])
     return DemoField.RunCommand(demoArgs);
+if (args is ["ingest", .. var ingestArgs])
+    return IngestCommand.Run(ingestArgs);
 
 var builder = WebApplication.CreateBuilder(args);
 var options = MosaicOptions.FromConfiguration(builder.Configuration);

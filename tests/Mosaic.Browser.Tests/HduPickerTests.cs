@@ -9,17 +9,20 @@ namespace Mosaic.Browser.Tests;
 public sealed class HduPickerTests(MosaicSite site)
 {
     [Fact]
-    public async Task The_chip_picker_lists_the_image_hdus_by_extname_and_picking_one_loads_its_tiles()
+    public async Task The_chip_picker_lists_the_whole_field_then_the_image_hdus_by_extname_and_picking_one_loads_its_tiles()
     {
         var band = site.Demo.Band(site.Demo.DefaultBand);
         var file = site.BandFile(band.Name);
         await using var viewer = await site.OpenViewerAsync();
-        await viewer.WaitForTilesAsync($"hdu={site.Demo.DefaultHdu}");
+        await viewer.WaitForTilesAsync("hdu=canvas");
 
-        // Every image HDU, each under its EXTNAME as astropy.io.fits (Debian python3-astropy) reads it.
+        // The whole field first, then every image HDU, each under its EXTNAME as astropy.io.fits (Debian
+        // python3-astropy) reads it.
         var options = await viewer.Page.EvalOnSelectorAllAsync<string[][]>("#hdu-picker option", "os => os.map(o => [o.value, o.textContent])");
-        Assert.Equal(band.Hdus.Select(h => h.Index.ToString(CultureInfo.InvariantCulture)), options.Select(o => o[0]));
-        foreach (var option in options)
+        Assert.Equal(["canvas", "Whole field"], options[0]);
+        var chips = options[1..];
+        Assert.Equal(band.Hdus.Select(h => h.Index.ToString(CultureInfo.InvariantCulture)), chips.Select(o => o[0]));
+        foreach (var option in chips)
             Assert.Equal(AstropyFits.Header(file, int.Parse(option[0], CultureInfo.InvariantCulture), "EXTNAME"), option[1]);
 
         var other = band.Hdus.First(h => h.Index != site.Demo.DefaultHdu && h.Index != band.Hdus[0].Index);
@@ -35,6 +38,9 @@ public sealed class HduPickerTests(MosaicSite site)
         });
         Assert.Empty(viewer.FailedTileRequests);
         Assert.Equal(other.Index, viewer.Url.Hdu);
+        Assert.False(viewer.Url.WholeField);
+        // Outlines belong to the whole field: on one chip there are none to show.
+        Assert.True(await viewer.Page.Locator("#outline-toggle").IsDisabledAsync());
 
         // The readout now names that chip and reads its pixels: the value at the view's middle is astropy's value
         // for that pixel of that HDU. Zoomed in first (+ key, four half levels), so a pixel is several screen
@@ -61,6 +67,12 @@ public sealed class HduPickerTests(MosaicSite site)
             Assert.Equal("masked", readout.Kind);
         else
             Assert.Equal((float)expected.Value.Value, (float)readout.RawValue!.Value);
+
+        // And back to the whole field from the picker.
+        await viewer.Page.SelectOptionAsync("#hdu-picker", "canvas");
+        await viewer.WaitForTilesAsync("hdu=canvas");
+        Assert.True(viewer.Url.WholeField);
+        Assert.False(await viewer.Page.Locator("#outline-toggle").IsDisabledAsync());
         Assert.Empty(viewer.PageErrors);
     }
 }

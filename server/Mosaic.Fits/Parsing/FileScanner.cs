@@ -38,8 +38,10 @@ internal static class FileScanner
                 throw context.Error(null,
                     $"truncated data: the header declares {layout.DataLength} data bytes but only {available} remain in the file");
 
-            var image = ImageKeywords.PlaneOf(layout, header, handle, dataOffset, context);
-            hdus.Add(new Hdu(index, header, offset, dataOffset, layout.DataLength, image));
+            if (CompressedImageReader.IsCompressedImage(header))
+                hdus.Add(CompressedImageReader.Read(index, header, layout, handle, offset, dataOffset, context));
+            else
+                hdus.Add(new Hdu(index, header, offset, dataOffset, layout.DataLength, ImageKeywords.PlaneOf(layout, header, handle, dataOffset, context)));
 
             // A missing final padding is tolerated: the data themselves are all there.
             var padded = (layout.DataLength + BlockSize - 1) / BlockSize * BlockSize;

@@ -27,7 +27,7 @@ internal static class ImageKeywords
         }
         // BLANK on floating-point data is not allowed and is ignored: NaN marks missing values there (section 5.3).
 
-        return new ImagePlane(handle, context.FilePath, context.HduIndex, layout.BitPix, (int)width, (int)height,
+        return new RawImagePlane(handle, context.FilePath, context.HduIndex, layout.BitPix, (int)width, (int)height,
             bScale, bZero, blank, dataOffset);
     }
 

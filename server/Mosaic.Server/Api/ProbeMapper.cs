@@ -1,3 +1,4 @@
+using Mosaic.Server.Canvases;
 using Mosaic.Server.Fields;
 using Mosaic.Wcs.Coordinates;
 
@@ -9,12 +10,45 @@ public static class ProbeMapper
     public static ProbeDto ToDto(FieldHdu hdu, double atX, double atY, int x, int y, double value)
     {
         ArgumentNullException.ThrowIfNull(hdu);
-        SkyPosition? icrs = hdu.Sky.Wcs is { } wcs && wcs.TryPixelToIcrs(atX, atY, out var found) ? found : null;
-        var galactic = icrs is null ? null : Galactic.FromIcrs(icrs);
-        return new ProbeDto(hdu.Band.Field.Id, hdu.Band.Name, hdu.Index, hdu.Name, x, y, double.IsNaN(value) ? null : value, hdu.Unit,
-            atX, atY, icrs?.RightAscension, icrs?.Declination,
-            icrs is null ? null : SexagesimalFormatter.FormatRightAscension(icrs.RightAscension),
-            icrs is null ? null : SexagesimalFormatter.FormatDeclination(icrs.Declination),
-            galactic?.Longitude, galactic?.Latitude);
+        var icrs = Icrs(hdu.Sky.Wcs, atX, atY);
+        return WithSky(new ProbeDto(hdu.Band.Field.Id, hdu.Band.Name, hdu.Index, hdu.Name, x, y, double.IsNaN(value) ? null : value, hdu.Unit,
+            atX, atY, null, null, null, null, null, null), icrs);
+    }
+
+    /// <summary>A canvas point on a chip: the chip's own pixel and value; the sky position from the canvas WCS.</summary>
+    public static ProbeDto ToCanvasDto(FieldCanvas canvas, double canvasX, double canvasY, FieldHdu chip, double atX, double atY, int x, int y, double value)
+    {
+        ArgumentNullException.ThrowIfNull(canvas);
+        ArgumentNullException.ThrowIfNull(chip);
+        var icrs = Icrs(canvas.Hdu.Sky.Wcs, canvasX, canvasY);
+        return WithSky(new ProbeDto(chip.Band.Field.Id, chip.Band.Name, chip.Index, chip.Name, x, y, double.IsNaN(value) ? null : value, chip.Unit,
+            atX, atY, null, null, null, null, null, null, new CanvasPointDto(canvasX, canvasY)), icrs);
+    }
+
+    /// <summary>A canvas point in a gap between chips: no chip, no value; the sky position still.</summary>
+    public static ProbeDto ToCanvasGapDto(FieldCanvas canvas, double canvasX, double canvasY)
+    {
+        ArgumentNullException.ThrowIfNull(canvas);
+        var icrs = Icrs(canvas.Hdu.Sky.Wcs, canvasX, canvasY);
+        return WithSky(new ProbeDto(canvas.Band.Field.Id, canvas.Band.Name, null, null, null, null, null, null,
+            null, null, null, null, null, null, null, null, new CanvasPointDto(canvasX, canvasY)), icrs);
+    }
+
+    private static SkyPosition? Icrs(Mosaic.Wcs.Wcs? wcs, double x, double y) =>
+        wcs is not null && wcs.TryPixelToIcrs(x, y, out var found) ? found : null;
+
+    private static ProbeDto WithSky(ProbeDto dto, SkyPosition? icrs)
+    {
+        if (icrs is null) return dto;
+        var galactic = Galactic.FromIcrs(icrs);
+        return dto with
+        {
+            Ra = icrs.RightAscension,
+            Dec = icrs.Declination,
+            RaSexagesimal = SexagesimalFormatter.FormatRightAscension(icrs.RightAscension),
+            DecSexagesimal = SexagesimalFormatter.FormatDeclination(icrs.Declination),
+            L = galactic.Longitude,
+            B = galactic.Latitude,
+        };
     }
 }

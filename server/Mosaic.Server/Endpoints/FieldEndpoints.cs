@@ -16,7 +16,7 @@ public static class FieldEndpoints
         group.MapGet("/{field}", Get)
             .WithSummary("One field (poll it for pyramid progress).");
         group.MapGet("/{field}/probe", Probe)
-            .WithSummary("The pixel at FITS position (x, y) of an HDU, or at a sky position (ra and dec in ICRS degrees, or typed text in 'position', which finds the HDU): its 1-based coordinates, physical value (null where masked) and sky coordinates.");
+            .WithSummary("The pixel at FITS position (x, y) of an HDU, or at a sky position (ra and dec in ICRS degrees, or typed text in 'position', which finds the HDU): its 1-based coordinates, physical value (null where masked) and sky coordinates. With hdu=canvas the point is on the band's whole-field canvas, and the answer names the original chip, its pixel and value (null in a gap), with 'canvas' the canvas position.");
         return group;
     }
 
@@ -35,6 +35,7 @@ public static class FieldEndpoints
         string? position, FieldCatalog catalog)
     {
         var resolved = catalog.Get(field).ResolveBand(band);
+        if (CanvasProbe.IsCanvas(hdu)) return TypedResults.Ok(CanvasProbe.Probe(resolved, ProbeQuery.Parse(x, y, ra, dec, position)));
         var (target, atX, atY) = ProbeTarget.Resolve(resolved, hdu, ProbeQuery.Parse(x, y, ra, dec, position));
         var px = ContainingPixel("x", atX, target.Plane.Width);
         var py = ContainingPixel("y", atY, target.Plane.Height);

@@ -1,4 +1,5 @@
 using Mosaic.Fits;
+using Mosaic.Server.Canvases;
 
 namespace Mosaic.Server.Fields;
 
@@ -44,18 +45,28 @@ public sealed class FieldBand
         foreach (var hdu in file.Hdus)
             if (hdu.Image is { } plane) _hdus.Add(new FieldHdu(this, hdu, plane));
         if (_hdus.Count == 0)
-            Error = file.Hdus.Any(h => h.Header.GetBool("ZIMAGE") == true)
-                ? $"{FileName}: tile-compressed images (ZIMAGE = T) cannot be read yet"
-                : $"{FileName}: no HDU holds a 2-D image";
+            Error = file.Hdus.FirstOrDefault(h => h.ImageProblem is not null)?.ImageProblem
+                ?? $"{FileName}: no HDU holds a 2-D image";
     }
 
     internal void Fail(string error) => Error = error;
 
-    /// <summary>By index ("0", "3") or EXTNAME (case-insensitive); the default HDU when null or empty.</summary>
+    /// <summary>The band's whole-field canvas (HDU "canvas"), or null where the field needs none or no chip has a WCS.</summary>
+    public FieldCanvas? Canvas { get; private set; }
+
+    internal void AttachCanvas(FieldCanvas canvas) => Canvas = canvas;
+
+    /// <summary>
+    /// By index ("0", "3"), "canvas" (the whole-field canvas) or EXTNAME (case-insensitive); the default HDU when
+    /// null or empty.
+    /// </summary>
     public FieldHdu ResolveHdu(string? hdu)
     {
         if (string.IsNullOrWhiteSpace(hdu))
             return DefaultHdu ?? throw Errors.MosaicRequestException.NotFound("HDU", $"'{FileName}' has no image HDU to show.", "hdu");
+        if (string.Equals(hdu.Trim(), FieldCanvas.HduName, StringComparison.OrdinalIgnoreCase))
+            return Canvas?.Hdu ?? throw Errors.MosaicRequestException.NotFound("HDU",
+                $"Band '{Name}' of field '{Field.Id}' has no whole-field canvas: {(Hdus.Any(h => h.Sky.Wcs is not null) ? "its images share one pixel grid" : "none of its images has a celestial WCS")}.", "hdu");
         if (int.TryParse(hdu, System.Globalization.NumberStyles.None, System.Globalization.CultureInfo.InvariantCulture, out var index))
         {
             if (File is not null && index >= File.Hdus.Count)

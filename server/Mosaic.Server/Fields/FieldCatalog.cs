@@ -15,6 +15,7 @@ public sealed class FieldCatalog(MosaicOptions options, ILogger<FieldCatalog> lo
     private readonly Lock _gate = new();
     private IReadOnlyList<Field> _fields = [];
     private DateTime _lastScanUtc = DateTime.MinValue;
+    private readonly Canvases.CanvasCatalog _canvases = new(logger);
 
     /// <summary>Raised after a scan with the fields it found (new and unchanged alike).</summary>
     public event Action<IReadOnlyList<Field>>? Scanned;
@@ -46,7 +47,9 @@ public sealed class FieldCatalog(MosaicOptions options, ILogger<FieldCatalog> lo
         lock (_gate)
         {
             if (DateTime.UtcNow - _lastScanUtc < RescanInterval) return;
-            _fields = Scan(_fields);
+            var fields = Scan(_fields);
+            _canvases.Attach(fields);
+            _fields = fields;
             _lastScanUtc = DateTime.UtcNow;
         }
         Scanned?.Invoke(_fields);

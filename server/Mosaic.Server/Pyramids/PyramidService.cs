@@ -11,7 +11,8 @@ namespace Mosaic.Server.Pyramids;
 
 /// <summary>
 /// Builds the pyramid of every image HDU once, in the background, one at a time, into the cache folder, where a
-/// later start finds it. The HDUs someone is looking at go to the front of the queue.
+/// later start finds it; a band's whole-field canvas is built like any HDU, queued after every chip. The HDUs
+/// someone is looking at go to the front of the queue.
 /// </summary>
 public sealed class PyramidService : BackgroundService
 {
@@ -30,7 +31,10 @@ public sealed class PyramidService : BackgroundService
         _logger = logger;
         catalog.Scanned += fields =>
         {
-            var hdus = fields.SelectMany(f => f.Bands).SelectMany(b => b.Hdus).ToList();
+            // The chips first, then the canvases: a canvas reads chip rows, and the field-wide limits its tiles
+            // need come from the chips' pyramids.
+            var bands = fields.SelectMany(f => f.Bands).ToList();
+            var hdus = bands.SelectMany(b => b.Hdus).Concat(bands.Select(b => b.Canvas?.Hdu).OfType<FieldHdu>()).ToList();
             Forget(hdus);
             Track(hdus);
         };
@@ -71,7 +75,7 @@ public sealed class PyramidService : BackgroundService
         };
     }
 
-    /// <summary>Field-wide statistics of a band: every HDU of the band together, so chips share one set of limits.</summary>
+    /// <summary>Field-wide statistics of a band: every HDU of the band together, so chips share one set of limits; the chips only, never the resampled canvas.</summary>
     public BandSummary GetBandSummary(FieldBand band)
     {
         if (_bandSummaries.TryGetValue(band.Version, out var summary)) return summary;

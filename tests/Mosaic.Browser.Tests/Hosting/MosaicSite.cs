@@ -5,8 +5,8 @@ using Mosaic.Browser.Tests.Viewer;
 namespace Mosaic.Browser.Tests.Hosting;
 
 /// <summary>
-/// A data folder with the small synthetic demo field, a small synthetic frame without any WCS and one unreadable
-/// FITS file, the real server serving it, and Debian's Chromium driven by Playwright.
+/// A data folder with the small synthetic demo field, a small synthetic frame without any WCS, a small file of three
+/// chips of which one has no WCS, and one unreadable FITS file, the real server serving it, and Debian's Chromium driven by Playwright.
 /// </summary>
 public sealed class MosaicSite : IAsyncLifetime
 {
@@ -14,6 +14,8 @@ public sealed class MosaicSite : IAsyncLifetime
     public const string BrokenFieldFile = "broken.fits";
     /// <summary>A field of one small image whose header has no celestial WCS at all: pixels yes, sky no.</summary>
     public const string UnsolvedFieldId = "unsolved";
+    /// <summary>A field of three chips in one file: two with a TAN WCS and a gap between them, one with no WCS.</summary>
+    public const string PartlySolvedFieldId = "partly-solved";
     private const string Chromium = "/usr/bin/chromium";
 
     private readonly string _root = Path.Combine(Path.GetTempPath(), $"mosaic-browser-{Guid.NewGuid():N}");
@@ -66,6 +68,31 @@ public sealed class MosaicSite : IAsyncLifetime
             """,
             [Path.Combine(DataDirectory, UnsolvedFieldId + ".fits")]);
 
+        // Written by astropy.io.fits (Debian python3-astropy). Two 96 x 64 chips side by side on the sky, 10 pixels
+        // apart (0.25"/px, north up, east left), and a third chip whose header has no WCS keywords at all.
+        Mosaic.Testing.DebianPython.RunCode(
+            """
+            import sys
+            import numpy as np
+            from astropy.io import fits
+            rng = np.random.default_rng(11)
+            hdus = [fits.PrimaryHDU()]
+            for name, crpix1 in (("CAM01", 102.0), ("CAM02", -4.0), ("CAM03", None)):
+                data = (200 + 10 * rng.standard_normal((64, 96)) + np.arange(96)[None, :]).astype(np.float32)
+                header = fits.Header()
+                header["BUNIT"] = "adu"
+                if crpix1 is not None:
+                    header["CTYPE1"], header["CTYPE2"] = "RA---TAN", "DEC--TAN"
+                    header["CRVAL1"], header["CRVAL2"] = 201.25, 33.5
+                    header["CRPIX1"], header["CRPIX2"] = crpix1, 32.5
+                    header["CD1_1"], header["CD1_2"] = -0.25 / 3600, 0.0
+                    header["CD2_1"], header["CD2_2"] = 0.0, 0.25 / 3600
+                    header["RADESYS"] = "ICRS"
+                hdus.append(fits.ImageHDU(data, header=header, name=name))
+            fits.HDUList(hdus).writeto(sys.argv[1])
+            """,
+            [Path.Combine(DataDirectory, PartlySolvedFieldId + ".fits")]);
+
         _server = await ServerProcess.StartAsync(DataDirectory, Path.Combine(_root, "cache"));
         _demo = await WaitForPyramidsAsync(TimeSpan.FromMinutes(3));
 
@@ -117,13 +144,18 @@ public sealed class MosaicSite : IAsyncLifetime
         }
     }
 
-    private async Task<FieldInfo> WaitForPyramidsAsync(TimeSpan limit)
+    /// <summary>The field once every pyramid of it (chips and whole fields) is ready.</summary>
+    public Task<FieldInfo> WaitForFieldAsync(string fieldId) => WaitForPyramidsAsync(TimeSpan.FromMinutes(2), fieldId);
+
+    private async Task<FieldInfo> WaitForPyramidsAsync(TimeSpan limit, string fieldId = DemoFieldId)
     {
         var deadline = DateTime.UtcNow + limit;
         while (true)
         {
-            var field = FieldInfo.Parse(await GetJsonAsync($"api/fields/{DemoFieldId}"));
-            var states = field.Bands.SelectMany(b => b.Hdus.Select(h => (Band: b.Name, Hdu: h.Name, State: h.PyramidState))).ToList();
+            var field = FieldInfo.Parse(await GetJsonAsync($"api/fields/{fieldId}"));
+            // The whole field's pyramid is built after its chips'.
+            var states = field.Bands.SelectMany(b => b.Hdus.Select(h => (Band: b.Name, Hdu: h.Name, State: h.PyramidState))
+                .Concat(b.Canvas is { } canvas ? [(Band: b.Name, Hdu: "canvas", State: canvas.PyramidState)] : [])).ToList();
             if (states.Where(s => s.State == "failed").Select(s => $"{s.Band}/{s.Hdu}").FirstOrDefault() is { } failed)
                 throw new InvalidOperationException($"the pyramid of {failed} failed:\n{Server.RecentOutput}");
             if (states.All(s => s.State == "ready")) return field;

@@ -30,6 +30,19 @@ public static class AstropyWcs
 
     public static SkyPoint PixelToSky(string file, int hdu, double x, double y) => PixelToSky(file, hdu, [(x, y)])[0];
 
+    /// <summary>
+    /// The FITS 1-based pixel position of an ICRS position on one HDU (astropy.wcs all_world2pix, SIP included), and
+    /// whether it falls on that HDU's pixels ([0.5, NAXIS + 0.5) each way).
+    /// </summary>
+    public static ChipPosition SkyToPixel(string file, int hdu, double ra, double dec)
+    {
+        var result = Run(["world2pix", file, hdu.ToString(CultureInfo.InvariantCulture),
+            ra.ToString("R", CultureInfo.InvariantCulture), dec.ToString("R", CultureInfo.InvariantCulture)]);
+        var point = result.GetProperty("points")[0];
+        return new ChipPosition(hdu, point.GetProperty("x").GetDouble(), point.GetProperty("y").GetDouble(),
+            result.GetProperty("width").GetInt32(), result.GetProperty("height").GetInt32());
+    }
+
     /// <summary>North, east and the pixel scale at a pixel position, by finite differences of astropy's transforms.</summary>
     public static LocalSky Local(string file, int hdu, double x, double y)
     {

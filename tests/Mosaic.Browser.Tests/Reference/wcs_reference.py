@@ -7,6 +7,8 @@ All pixel <-> sky steps use WCS.all_pix2world / all_world2pix, which include SIP
 
 Commands (each prints one JSON object):
   pix2world FILE HDU X Y [X Y ...]   ra, dec, l, b of each pixel position
+  world2pix FILE HDU RA DEC [RA DEC ...]
+                                     FITS pixel position (x, y) of each ICRS position, with the image's size
   local FILE HDU X Y                 north and east as unit vectors in pixel axes at (X, Y), and the pixel scale
                                      (arcsec per pixel, sqrt |det J| of pixel -> local sky offsets) there
 """
@@ -45,7 +47,8 @@ def to_pixel(wcs, frame, ra, dec):
     native = SkyCoord(np.asarray(ra) * u.deg, np.asarray(dec) * u.deg, frame="icrs").transform_to(frame)
     lon = native.spherical.lon.deg
     lat = native.spherical.lat.deg
-    return wcs.all_world2pix(lon, lat, 1, tolerance=1e-10, maxiter=100)
+    # quiet: a position far off a chip (checking that it is on none) need not converge to 1e-10 to be plainly off it.
+    return wcs.all_world2pix(lon, lat, 1, tolerance=1e-10, maxiter=100, quiet=True)
 
 
 def pix2world(path, hdu, coordinates):
@@ -58,6 +61,15 @@ def pix2world(path, hdu, coordinates):
         points.append({"x": x, "y": y, "ra": float(icrs.ra.deg[i]), "dec": float(icrs.dec.deg[i]),
                        "l": float(galactic.l.deg[i]), "b": float(galactic.b.deg[i])})
     return {"points": points}
+
+
+def world2pix(path, hdu, coordinates):
+    wcs, frame = load(path, hdu)
+    ras, decs = coordinates[0::2], coordinates[1::2]
+    xs, ys = to_pixel(wcs, frame, ras, decs)
+    width, height = int(wcs.pixel_shape[0]), int(wcs.pixel_shape[1])
+    points = [{"ra": ra, "dec": dec, "x": float(x), "y": float(y)} for ra, dec, x, y in zip(ras, decs, xs, ys)]
+    return {"width": width, "height": height, "points": points}
 
 
 def local(path, hdu, x, y):
@@ -89,6 +101,7 @@ def local(path, hdu, x, y):
 
 COMMANDS = {
     "pix2world": lambda a: pix2world(a[0], int(a[1]), [float(v) for v in a[2:]]),
+    "world2pix": lambda a: world2pix(a[0], int(a[1]), [float(v) for v in a[2:]]),
     "local": lambda a: local(a[0], int(a[1]), float(a[2]), float(a[3])),
 }
 

@@ -105,7 +105,7 @@ public sealed class PixelValueTests(AstropyReferenceFiles files)
             var masked = Enumerable.Range(0, reference.Length).Where(i => double.IsNaN(reference[i])).ToArray();
             Assert.Equal(3, masked.Length);
             using var file = FitsFile.Open(files.PathOf(name));
-            var plane = file.Hdus[0].Image!;
+            var plane = (RawImagePlane)file.Hdus[0].Image!;
             Assert.NotNull(plane.Blank);
             foreach (var i in masked) Assert.True(double.IsNaN(plane.ReadValue(i % plane.Width, i / plane.Width)));
         }

@@ -70,6 +70,6 @@ public sealed class StructureTests(AstropyReferenceFiles files)
         Assert.Equal(3, hdu.Header.GetLong("NAXIS3"));
         // astropy.io.fits: data[0] is the first plane; the full data (3 planes) is what DataLength counts.
         Assert.Equal(3L * 67 * 13 * 4, hdu.DataLength);
-        Assert.Equal(hdu.DataOffset, hdu.Image!.DataOffset);
+        Assert.Equal(hdu.DataOffset, ((RawImagePlane)hdu.Image!).DataOffset);
     }
 }

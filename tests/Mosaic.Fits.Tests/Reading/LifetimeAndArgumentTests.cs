@@ -26,7 +26,7 @@ public sealed class LifetimeAndArgumentTests : IDisposable
     {
         var path = WriteImage(300, 200, bitPix);
         using var file = FitsFile.Open(path);
-        var plane = file.Hdus[0].Image!;
+        var plane = (RawImagePlane)file.Hdus[0].Image!;
         // Cut the file inside the data, as a rewrite in place would, while it stays open for reading.
         using (var stream = new FileStream(path, FileMode.Open, FileAccess.Write, FileShare.ReadWrite | FileShare.Delete))
             stream.SetLength(plane.DataOffset + 1000);

@@ -26,7 +26,7 @@ public sealed class PyramidBuildTests(ReferenceImages images) : IClassFixture<Re
         var copy = Path.Combine(_parent, "frame.fits");
         File.Copy(images.FitsPath("wide_odd"), copy);
         using var fits = FitsFile.Open(copy);
-        var plane = fits.Hdus[0].Image!;
+        var plane = (RawImagePlane)fits.Hdus[0].Image!;
         // Cut the data in half under the open file: the reader's positional reads run past its end.
         using (var stream = new FileStream(copy, FileMode.Open, FileAccess.Write, FileShare.ReadWrite))
             stream.SetLength(plane.DataOffset + (long)plane.Width * plane.Height * 2);

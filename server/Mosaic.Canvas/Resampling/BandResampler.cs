@@ -1,0 +1,217 @@
+using System.Buffers;
+using Mosaic.Canvas.Mapping;
+
+namespace Mosaic.Canvas.Resampling;
+
+/// <summary>
+/// Fills a box of canvas pixels from the chips of a band (the method is described on <see cref="CanvasPlane"/>).
+/// Each chip is read only over the rectangle of chip pixels the box needs, found from the grid nodes (bilinear
+/// positions never leave the hull of their four nodes); a box whose rectangle would exceed
+/// <see cref="MaxRectPixels"/> is split first by columns, then by rows. Buffers are pooled per call, so calls may run
+/// on several threads at once.
+/// </summary>
+internal static class BandResampler
+{
+    /// <summary>Most chip pixels read into memory at once for one chip (4 MiB of floats).</summary>
+    public const int MaxRectPixels = 1 << 20;
+
+    /// <summary>Canvas rows [y0, y0 + rows) and columns [x0, x0 + columns), 0-based, into destination (rows * columns, row-major).</summary>
+    public static void Resample(CanvasBand band, int y0, int rows, int x0, int columns, Span<float> destination)
+    {
+        destination = destination[..(rows * columns)];
+        destination.Fill(float.NaN);
+        double[]? best = null;
+        try
+        {
+            if (band.Overlapping)
+            {
+                best = ArrayPool<double>.Shared.Rent(rows * columns);
+                best.AsSpan(0, rows * columns).Fill(double.PositiveInfinity);
+            }
+            var box = new OutputBox(y0, x0, columns);
+            foreach (var chip in band.Chips)
+            {
+                if (chip.IsEmpty) continue;
+                int rs = Math.Max(y0, chip.FirstRow), re = Math.Min(y0 + rows - 1, chip.LastRow);
+                int cs = Math.Max(x0, chip.FirstColumn), ce = Math.Min(x0 + columns - 1, chip.LastColumn);
+                if (rs > re || cs > ce) continue;
+                Split(chip, rs, re, cs, ce, box, destination, best);
+            }
+        }
+        finally
+        {
+            if (best is not null) ArrayPool<double>.Shared.Return(best);
+        }
+    }
+
+    /// <summary>Where the caller's box sits on the canvas.</summary>
+    private readonly record struct OutputBox(int Y0, int X0, int Columns);
+
+    private static void Split(PlacedChip chip, int rs, int re, int cs, int ce, OutputBox box, Span<float> destination, double[]? best)
+    {
+        var G = chip.Grid.Spacing;
+        if (!TryRect(chip, rs, re, cs, ce, out var rx0, out var ry0, out var rx1, out var ry1)) return;
+        var area = (long)(rx1 - rx0 + 1) * (ry1 - ry0 + 1);
+        if (area > MaxRectPixels)
+        {
+            if (ce - cs + 1 > G)
+            {
+                // Split on a cell boundary, so both halves use whole cells.
+                var mid = Math.Max(cs + 1, (cs + (ce - cs + 1) / 2) / G * G);
+                Split(chip, rs, re, cs, mid - 1, box, destination, best);
+                Split(chip, rs, re, mid, ce, box, destination, best);
+                return;
+            }
+            if (re > rs)
+            {
+                var mid = rs + (re - rs + 1) / 2;
+                Split(chip, rs, mid - 1, cs, ce, box, destination, best);
+                Split(chip, mid, re, cs, ce, box, destination, best);
+                return;
+            }
+        }
+        var buffer = ArrayPool<float>.Shared.Rent((int)area);
+        try
+        {
+            var rect = new ChipRect(rx0, ry0, rx1, ry1, buffer.AsSpan(0, (int)area));
+            for (var ry = ry0; ry <= ry1; ry++)
+                chip.Plane.ReadRow(ry, rx0, rect.Values.Slice((ry - ry0) * rect.Width, rect.Width));
+            Fill(chip, rs, re, cs, ce, rect, box, destination, best);
+        }
+        finally
+        {
+            ArrayPool<float>.Shared.Return(buffer);
+        }
+    }
+
+    /// <summary>The chip pixels (0-based, inclusive) that canvas rows [rs, re] x columns [cs, ce] can touch; false when none.</summary>
+    private static bool TryRect(PlacedChip chip, int rs, int re, int cs, int ce, out int x0, out int y0, out int x1, out int y1)
+    {
+        var grid = chip.Grid;
+        var G = grid.Spacing;
+        double minU = double.PositiveInfinity, maxU = double.NegativeInfinity, minV = double.PositiveInfinity, maxV = double.NegativeInfinity;
+        int k0 = cs / G - grid.FirstColumn, k1 = ce / G + 1 - grid.FirstColumn;
+        for (int j = rs / G, jEnd = re / G + 1; j <= jEnd; j++)
+        {
+            var row = grid.Row(j);
+            for (var k = k0; k <= k1; k++)
+            {
+                double u = row[2 * k] - 1, v = row[2 * k + 1] - 1;
+                if (double.IsNaN(u) || double.IsNaN(v)) continue;
+                minU = Math.Min(minU, u); maxU = Math.Max(maxU, u);
+                minV = Math.Min(minV, v); maxV = Math.Max(maxV, v);
+            }
+        }
+        int width = chip.Plane.Width, height = chip.Plane.Height;
+        x0 = y0 = 0;
+        x1 = y1 = -1;
+        if (double.IsInfinity(minU) || double.IsInfinity(minV)) return false;
+        // Bilinear reads floor(u) and floor(u) + 1; nearest reads floor(u + 0.5): both within [floor(min), floor(max) + 1].
+        x0 = (int)Math.Max(0, Math.Floor(Math.Max(minU, -1)));
+        x1 = (int)Math.Min(width - 1, Math.Floor(Math.Min(maxU, width)) + 1);
+        y0 = (int)Math.Max(0, Math.Floor(Math.Max(minV, -1)));
+        y1 = (int)Math.Min(height - 1, Math.Floor(Math.Min(maxV, height)) + 1);
+        return x0 <= x1 && y0 <= y1;
+    }
+
+    private static void Fill(PlacedChip chip, int rs, int re, int cs, int ce, ChipRect rect, OutputBox box, Span<float> destination, double[]? best)
+    {
+        var grid = chip.Grid;
+        var G = grid.Spacing;
+        int n = ce - cs + 1, k0 = cs / G, k1 = ce / G + 1, nodes = k1 - k0 + 1;
+        var scratch = ArrayPool<double>.Shared.Rent(2 * n + 2 * nodes);
+        try
+        {
+            var xs = scratch.AsSpan(0, n);
+            var ys = scratch.AsSpan(n, n);
+            var nodeX = scratch.AsSpan(2 * n, nodes);
+            var nodeY = scratch.AsSpan(2 * n + nodes, nodes);
+            int width = chip.Plane.Width, height = chip.Plane.Height;
+            double centreX = chip.Centre.X, centreY = chip.Centre.Y;
+            for (var r = rs; r <= re; r++)
+            {
+                var j = r / G;
+                double fy = (double)(r - j * G) / G;
+                double[] a = grid.Row(j), b = grid.Row(j + 1);
+                var first = k0 - grid.FirstColumn;
+                for (var k = 0; k < nodes; k++)
+                {
+                    int at = 2 * (first + k);
+                    nodeX[k] = a[at] + fy * (b[at] - a[at]);
+                    nodeY[k] = a[at + 1] + fy * (b[at + 1] - a[at + 1]);
+                }
+                // Positions along the row: a linear ramp per cell between its two nodes.
+                for (var c = cs; c <= ce;)
+                {
+                    var k = c / G;
+                    var end = Math.Min(ce, k * G + G - 1);
+                    double t0 = (double)(c - k * G) / G;
+                    int kk = k - k0;
+                    double sx = (nodeX[kk + 1] - nodeX[kk]) / G, sy = (nodeY[kk + 1] - nodeY[kk]) / G;
+                    Ramp.Fill(xs.Slice(c - cs, end - c + 1), nodeX[kk] + t0 * G * sx, sx);
+                    Ramp.Fill(ys.Slice(c - cs, end - c + 1), nodeY[kk] + t0 * G * sy, sy);
+                    c = end + 1;
+                }
+                var outRow = destination.Slice((r - box.Y0) * box.Columns, box.Columns);
+                var bestRow = best is null ? default : best.AsSpan((r - box.Y0) * box.Columns, box.Columns);
+                double canvasY = r + 1;
+                for (var m = 0; m < n; m++)
+                {
+                    double u = xs[m] - 1, v = ys[m] - 1;
+                    var canvasX = cs + m + 1;
+                    if (double.IsNaN(u) || double.IsNaN(v))
+                    {
+                        // A grid node without a sky solution: this pixel by the exact chain instead.
+                        if (!grid.Chain.TryCanvasToChip(canvasX, canvasY, out u, out v)) continue;
+                        u -= 1; v -= 1;
+                    }
+                    if (!(u >= -0.5 && u < width - 0.5 && v >= -0.5 && v < height - 0.5)) continue;
+                    var o = cs + m - box.X0;
+                    if (best is not null)
+                    {
+                        double dx = canvasX - centreX, dy = canvasY - centreY;
+                        var d = dx * dx + dy * dy;
+                        if (d >= bestRow[o]) continue;
+                        bestRow[o] = d;
+                    }
+                    outRow[o] = Sample(chip, rect, u, v, width, height);
+                }
+            }
+        }
+        finally
+        {
+            ArrayPool<double>.Shared.Return(scratch);
+        }
+    }
+
+    /// <summary>Bilinear in the four neighbours when all are finite, else the nearest pixel; (u, v) 0-based and held by the chip.</summary>
+    private static float Sample(PlacedChip chip, ChipRect rect, double u, double v, int width, int height)
+    {
+        int i = (int)Math.Floor(u), j = (int)Math.Floor(v);
+        if (i >= 0 && i < width - 1 && j >= 0 && j < height - 1)
+        {
+            float a, b, c, d;
+            if (i >= rect.X0 && i + 1 <= rect.X1 && j >= rect.Y0 && j + 1 <= rect.Y1)
+            {
+                var at = (j - rect.Y0) * rect.Width + (i - rect.X0);
+                a = rect.Values[at]; b = rect.Values[at + 1];
+                c = rect.Values[at + rect.Width]; d = rect.Values[at + rect.Width + 1];
+            }
+            else
+            {
+                // Only after an exact-chain fallback can a pixel fall outside the rectangle read.
+                a = (float)chip.Plane.ReadValue(i, j); b = (float)chip.Plane.ReadValue(i + 1, j);
+                c = (float)chip.Plane.ReadValue(i, j + 1); d = (float)chip.Plane.ReadValue(i + 1, j + 1);
+            }
+            if (float.IsFinite(a) && float.IsFinite(b) && float.IsFinite(c) && float.IsFinite(d))
+            {
+                double fx = u - i, fy = v - j;
+                return (float)((1 - fx) * (1 - fy) * a + fx * (1 - fy) * b + (1 - fx) * fy * c + fx * fy * d);
+            }
+        }
+        int ni = Math.Clamp((int)Math.Floor(u + 0.5), 0, width - 1), nj = Math.Clamp((int)Math.Floor(v + 0.5), 0, height - 1);
+        return ni >= rect.X0 && ni <= rect.X1 && nj >= rect.Y0 && nj <= rect.Y1
+            ? rect.Values[(nj - rect.Y0) * rect.Width + (ni - rect.X0)]
+            : (float)chip.Plane.ReadValue(ni, nj);
+    }
+}
