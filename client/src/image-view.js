@@ -56,6 +56,13 @@ export class ImageView extends EventTarget {
       if (this.#keyboardProbe) this.#setPointer(null);
       this.#setKeyboardProbe(false);
     });
+    // pointermove, not Leaflet's mousemove: Chromium gives a mouse event whole CSS pixels, a pointer event the
+    // fractional position, and past native zoom a truncated position can fall in the neighbouring image pixel.
+    container.addEventListener('pointermove', (event) => {
+      if (this.#map === null) return;
+      this.#setKeyboardProbe(false);
+      this.#setPointer(this.#map.mouseEventToContainerPoint(event));
+    });
     // The display panel opening or closing resizes the view without resizing the window.
     new ResizeObserver(() => this.#map?.invalidateSize({ pan: false })).observe(container);
   }
@@ -295,10 +302,6 @@ export class ImageView extends EventTarget {
 
     map.on('zoomend', () => this.#markPastNative());
     map.on('moveend', () => this.dispatchEvent(new CustomEvent('viewchange', { detail: this.view })));
-    map.on('mousemove', (event) => {
-      this.#setKeyboardProbe(false);
-      this.#setPointer(event.containerPoint);
-    });
     map.on('mouseout', () => {
       if (!this.#keyboardProbe) this.#setPointer(null);
     });

@@ -7,6 +7,7 @@ import { tileUrlTemplate } from './api.js';
 import { normaliseDisplay } from './display-query.js';
 import { CHANNELS } from './colour-query.js';
 import { fillSelect } from './select-options.js';
+import { isWholeField } from './whole-field.js';
 
 const CHANNEL_LABELS = Object.freeze({ red: 'Red', green: 'Green', blue: 'Blue' });
 const DEFAULT_PALETTE = 'gray';
@@ -55,7 +56,7 @@ export class PaneGrid extends EventTarget {
   }
 
   /**
-   * Shows `panes` ([{channel, band, hdu: {index, name, width, height, maxZoom}, palette}], red first) of `field`
+   * Shows `panes` ([{channel, band, hdu: {index, name, width, height, maxZoom, chips}, palette}], red first) of `field`
    * with the shared `display` settings, at `view` ({x, y, z}) or where the panes already are.
    */
   show(field, panes, display, view = null) {
@@ -76,8 +77,11 @@ export class PaneGrid extends EventTarget {
         return;
       }
       pane.shows = shows;
-      pane.view.show({ tileUrl, width: spec.hdu.width, height: spec.hdu.height, maxZoom: spec.hdu.maxZoom }, start);
-      pane.readout.setSource({ ...source, hduName: spec.hdu.name, width: spec.hdu.width, height: spec.hdu.height });
+      // On the whole field, as in the single view: the masked colour only inside the chips, the chip named per point.
+      const wholeField = isWholeField(spec.hdu.index);
+      const maskShapes = wholeField ? spec.hdu.chips.map((chip) => chip.outline) : null;
+      pane.view.show({ tileUrl, width: spec.hdu.width, height: spec.hdu.height, maxZoom: spec.hdu.maxZoom, maskShapes }, start);
+      pane.readout.setSource({ ...source, hduName: spec.hdu.name, width: spec.hdu.width, height: spec.hdu.height, wholeField });
     });
     this.#view = this.#panes[0].view.view;
   }
