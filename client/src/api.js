@@ -1,6 +1,43 @@
 // The server's HTTP API. Paths are relative to the page so the app also works behind a proxy under a sub-path.
 import { ApiError } from './api-error.js';
 import { displayParameters } from './display-query.js';
+import { colourParameters } from './colour-query.js';
+
+// Display parameters a composite does not take: palettes are refused with rgb (colour contract).
+const PALETTE_PARAMETERS = new Set(['palette', 'ch-start', 'ch-rot', 'ch-hue', 'ch-gamma']);
+
+// A channel that names its own limits mode (or tone curve) must not inherit the shared mode's parameters, which
+// the server refuses beside another mode: they are overridden with empty values for that channel.
+const GROUPS = Object.freeze([
+  ['limits', ['limits', 'lo', 'hi', 'plo', 'phi', 'klo', 'khi']],
+  ['stretch', ['stretch', 'gamma', 'a', 'soft', 'pivot']],
+]);
+
+function blankSharedGroups(query, shared, colour) {
+  const sharedNames = new Set(shared.map(([name]) => name));
+  for (const channel of ['red', 'green', 'blue']) {
+    const own = colour.channels[channel];
+    for (const [selector, members] of GROUPS) {
+      if (own[selector] === undefined) continue;
+      for (const name of members) {
+        if (sharedNames.has(name) && own[name] === undefined) query.set(`${channel}-${name}`, '');
+      }
+    }
+  }
+}
+
+function compositeQuery(hdu, display, colour, masked) {
+  const query = new URLSearchParams(colourParameters(colour));
+  if (hdu !== null) query.set('hdu', String(hdu));
+  // Lupton's composite has its own tone curve; the per-band one shares the display settings between channels.
+  if (colour.rgb === 'each') {
+    const shared = displayParameters(display, { masked: null }).filter(([name]) => !PALETTE_PARAMETERS.has(name));
+    for (const [name, value] of shared) query.set(name, value);
+    blankSharedGroups(query, shared, colour);
+  }
+  if (masked !== null) query.set('masked', masked);
+  return query;
+}
 
 async function getJson(path, signal) {
   const response = await fetch(path, { signal, headers: { Accept: 'application/json' } });
@@ -55,6 +92,20 @@ export function tileUrlTemplate({ field, band, hdu }, display = null) {
     for (const [name, value] of displayParameters(display, { masked: 'transparent' })) query.set(name, value);
   }
   return `tiles/${encodeURIComponent(field)}/{z}/{x}/{y}.png?${query}`;
+}
+
+/**
+ * The tile URL template of a colour composite of one HDU (`colour.rgb` set, all three bands named), masked pixels
+ * (masked in any band) transparent as in single-band tiles.
+ */
+export function compositeTileUrlTemplate({ field, hdu }, display, colour) {
+  const query = compositeQuery(hdu, display, colour, 'transparent');
+  return `tiles/${encodeURIComponent(field)}/{z}/{x}/{y}.png?${query}`;
+}
+
+/** The composite resolved against its bands' statistics: Q, range and minima, or each channel's limits. */
+export function getCompositeDisplay({ field, hdu }, display, colour, signal) {
+  return getJson(fieldPath(field, 'display', compositeQuery(hdu, display, colour, null)), signal);
 }
 
 function fieldPath(field, endpoint, query) {

@@ -1,6 +1,6 @@
 // Wires the controls together: the pickers choose what to show, the display panel how to draw it, the image view
 // shows it, and the view state (and so the URL) follows all three.
-import { listFields, getField, tileUrlTemplate, listPalettes, probePosition } from './api.js';
+import { listFields, getField, tileUrlTemplate, compositeTileUrlTemplate, getCompositeDisplay, listPalettes, probePosition } from './api.js';
 import { ViewState } from './state.js';
 import { ImageView } from './image-view.js';
 import { FieldPicker } from './field-picker.js';
@@ -13,6 +13,14 @@ import { MessageLine } from './message-line.js';
 import { DisplayPanel } from './display-panel.js';
 import { DisplaySync } from './display-sync.js';
 import { sameDisplay, droppedParameters } from './display-query.js';
+import { CHANNELS, channelBands, sameColour } from './colour-query.js';
+import { COMPOSITE_LAYER, LAYOUT_DEFAULTS } from './layout-query.js';
+import { defaultChannels } from './band-order.js';
+import { probeChannels } from './channel-probe.js';
+import { ColourControls, readResolvedColour } from './colour-controls.js';
+import { LayoutControls } from './layout-controls.js';
+import { PaneGrid } from './pane-grid.js';
+import { setSectionActive } from './section-state.js';
 import { GotoBox } from './goto-box.js';
 import { createPositionMarker } from './position-marker.js';
 import { GridToggle } from './grid-toggle.js';
@@ -29,7 +37,7 @@ const imageView = new ImageView(document.getElementById('image-view'));
 const fieldPicker = new FieldPicker(document.getElementById('field-picker'), document.getElementById('field-note'));
 const bandPicker = new BandPicker(document.getElementById('band-picker'));
 const hduPicker = new HduPicker(document.getElementById('hdu-picker'));
-const readout = new PixelReadout(document.getElementById('pixel-readout'));
+const readout = new PixelReadout(document.getElementById('pixel-readout'), probeChannels);
 const progress = new BuildProgress(document.getElementById('build-progress'));
 const message = new MessageLine(document.getElementById('message'));
 const watcher = new FieldWatcher();
@@ -37,6 +45,12 @@ const watcher = new FieldWatcher();
 const defaultMask = getComputedStyle(document.documentElement).getPropertyValue('--mask-colour').trim().slice(1).toLowerCase();
 const panel = new DisplayPanel(document.getElementById('display-panel'), { defaultMask });
 const sync = new DisplaySync(panel);
+const panelRoot = document.getElementById('display-panel');
+const colourControls = new ColourControls(panelRoot.querySelector('[data-role=colour-section]'));
+const layoutControls = new LayoutControls(panelRoot.querySelector('[data-role=layout-section]'));
+const stage = document.querySelector('.stage');
+const panes = new PaneGrid(document.getElementById('pane-grid'));
+const bandSelect = document.getElementById('band-picker');
 const gotoBox = new GotoBox(document.getElementById('goto-box'), probePosition);
 const gridToggle = new GridToggle(document.getElementById('grid-toggle'));
 const skySync = new SkySync();
@@ -48,8 +62,12 @@ const outlineToggle = new OutlineToggle(document.getElementById('outline-toggle'
 
 let fields = [];
 let field = null;
-// The HDU on screen: {field, band, hdu} plus whether its tiles were ready when last seen, and its `sky`.
+// The HDU on screen: {field, band, hdu} plus whether its tiles were ready when last seen, and its `sky`. In a
+// colour mode `band` is the red channel's, whose chips the chip picker lists.
 let shown = null;
+// The geometry of what the image view shows, so a new display restyles the tiles instead of replacing them.
+let shownGeometry = null;
+let compositeRequest = null;
 // The go-to mark: {marker, field, band, hdu}; shown only over the HDU it was found on.
 let mark = null;
 // Arcsec per image pixel near the middle of the view: from the newest /sky answer, else the HDU's own.
@@ -59,6 +77,10 @@ const isPreparing = (hdu) => hdu.pyramid?.state === 'queued' || hdu.pyramid?.sta
 
 function readableBand(candidate, name) {
   return candidate.bands.find((band) => band.name === name && !band.error && band.hdus.length > 0) ?? null;
+}
+
+function readableNames(candidate) {
+  return candidate.bands.filter((band) => !band.error && band.hdus.length > 0).map((band) => band.name);
 }
 
 function pickBand(candidate, name) {
@@ -79,8 +101,43 @@ function pickHdu(band, index, fallback) {
     ?? band.hdus[0];
 }
 
+/** The band of each channel: the one the state names where the field can show it, else the default. */
+function channelsOf(candidate, colour) {
+  const names = readableNames(candidate);
+  const defaults = defaultChannels(names);
+  const asked = channelBands(colour, defaults);
+  return Object.fromEntries(CHANNELS.map((channel) => [channel, names.includes(asked[channel]) ? asked[channel] : defaults[channel]]));
+}
+
+// The layers compared: those the state names where they can be shown, else the composite (or the band) against
+// another band.
+function compareLayers(candidate, colour, layout, channels) {
+  const names = readableNames(candidate);
+  const usable = (token) => (token === COMPOSITE_LAYER ? colour.rgb !== null : names.includes(token));
+  const main = colour.rgb !== null ? COMPOSITE_LAYER : shown?.band ?? names[0];
+  const first = usable(layout.first) ? layout.first : main;
+  const fallbackSecond = first === COMPOSITE_LAYER ? channels.red : names.find((name) => name !== first) ?? first;
+  const second = usable(layout.second) ? layout.second : fallbackSecond;
+  return { first, second };
+}
+
+function layerUrl(token, hduIndex) {
+  const { display, colour } = state.current;
+  if (token === COMPOSITE_LAYER) {
+    return compositeTileUrlTemplate({ field: field.id, hdu: hduIndex }, display, { ...colour, ...channelsOf(field, colour) });
+  }
+  return tileUrlTemplate({ field: field.id, band: token, hdu: hduIndex }, display);
+}
+
+function layerLabel(token) {
+  return token === COMPOSITE_LAYER ? 'colour composite' : `band ${token}`;
+}
+
 function open(candidate, { band: bandName = null, hdu: hduIndex = null, view = null } = {}) {
-  const band = pickBand(candidate, bandName);
+  const { colour } = state.current;
+  const colourMode = colour.rgb !== null;
+  const channels = channelsOf(candidate, colour);
+  const band = colourMode ? readableBand(candidate, channels.red) : pickBand(candidate, bandName);
   if (band === null) {
     message.show(`Field “${candidate.id}” has no band that can be shown${candidate.error ? `: ${candidate.error}` : '.'}`);
     return;
@@ -90,23 +147,20 @@ function open(candidate, { band: bandName = null, hdu: hduIndex = null, view = n
   const source = { field: candidate.id, band: band.name, hdu: hdu.index };
 
   fieldPicker.setFields(fields, candidate.id);
-  bandPicker.setBands(candidate.bands, band.name);
+  bandPicker.setBands(candidate.bands, colourMode ? state.current.band ?? band.name : band.name);
   hduPicker.setHdus(bandEntries(band), hdu.index);
-  state.update(source);
+  state.update(colourMode ? { field: candidate.id, hdu: hdu.index, band: state.current.band ?? candidate.defaultBand } : source);
+  colourControls.setBands(readableNames(candidate));
   const wholeField = isWholeField(hdu.index);
   outlines.show(wholeField ? hdu.chips : []);
   outlineToggle.setCanvas(wholeField ? hdu : null);
 
   shown = { ...source, ready: hdu.pyramid?.state === 'ready', sky: hdu.sky ?? null };
-  const display = state.current.display;
+  shownGeometry = null;
   showSky(source, hdu);
-  const maskShapes = wholeField ? hdu.chips.map((chip) => chip.outline) : null;
-  imageView.show({ tileUrl: tileUrlTemplate(source, display), width: hdu.width, height: hdu.height, maxZoom: hdu.maxZoom, maskShapes }, view);
+  render(view);
   panel.limits.fitEnabled = true;
-  sync.update(source, display);
-  readout.setSource({
-    ...source, hduName: hdu.name, width: hdu.width, height: hdu.height, sky: hdu.sky ?? null, skyError: hdu.skyError ?? null, wholeField,
-  });
+  sync.update(source, state.current.display);
   progress.show(hdu.name, hdu.pyramid);
   watchPreparation(band);
   refreshSky();
@@ -206,13 +260,141 @@ function goTo(answer) {
   placeMark(answer.atX, answer.atY, answer.text, target);
 }
 
+/** The same HDU index in another band, or null when that band has none. */
+function hduOf(bandName, index) {
+  const band = field.bands.find((b) => b.name === bandName);
+  if (band === undefined) return null;
+  return isWholeField(index) ? wholeFieldEntry(band) : band.hdus.find((h) => h.index === index) ?? null;
+}
+
+// Puts on screen what the state asks for: one image (a band or the composite), the three bands side by side, or
+// two layers compared; and the colour and layout controls with it.
+function render(view = null) {
+  if (field === null || shown === null) return;
+  const { colour, layout, display } = state.current;
+  const colourMode = colour.rgb !== null;
+  const channels = channelsOf(field, colour);
+  const names = readableNames(field);
+  const hdu = hduOf(shown.band, shown.hdu);
+  const layers = compareLayers(field, colour, layout, channels);
+
+  const asked = channelBands(colour, { red: null, green: null, blue: null });
+  const unknown = CHANNELS.filter((channel) => asked[channel] !== null && !names.includes(asked[channel]));
+  if (unknown.length > 0) {
+    const which = unknown.map((channel) => `${channel} “${asked[channel]}” (showing ${channels[channel]})`).join(', ');
+    message.show(`Not a band of field “${field.id}”: ${which}.`, 'channels');
+  } else {
+    message.clear('channels');
+  }
+  bandSelect.disabled = colourMode || names.length === 0;
+  bandSelect.title = colourMode ? 'A colour composite shows the bands chosen for its channels in the display panel' : '';
+  colourControls.show(colour, channels, lastResolvedColour(colour));
+  layoutControls.show(layout, layers, { bands: names, composite: colourMode });
+  showSectionsFor(colour.rgb);
+  stage.dataset.view = layout.view ?? 'single';
+
+  if (layout.view === 'panes') {
+    const specs = CHANNELS.map((channel) => ({
+      channel, band: channels[channel], hdu: hduOf(channels[channel], shown.hdu), palette: layout.panePalettes?.[CHANNELS.indexOf(channel)],
+    }));
+    const missing = specs.find((spec) => spec.hdu === null);
+    if (missing) {
+      message.show(`Band ${missing.band} has no HDU ${shown.hdu}: the side-by-side panes need the same chip in every band.`, 'layout');
+      return;
+    }
+    message.clear('layout');
+    panes.show(field.id, specs, display, view ?? (panes.visible ? null : imageView.view));
+    imageView.setCompare(null);
+    resolveComposite();
+    return;
+  }
+  message.clear('layout');
+  const start = view ?? (panes.visible ? panes.view : null);
+  panes.hide();
+  const comparing = layout.view === 'swipe' || layout.view === 'blink';
+  const base = comparing ? layers.first : colourMode ? COMPOSITE_LAYER : shown.band;
+  const baseUrl = layerUrl(base, shown.hdu);
+  const wholeField = isWholeField(shown.hdu);
+  const geometry = `${shown.hdu}:${hdu.width}x${hdu.height}x${hdu.maxZoom}`;
+  if (shownGeometry !== geometry || start !== null) {
+    const maskShapes = wholeField ? hdu.chips.map((chip) => chip.outline) : null;
+    imageView.show({ tileUrl: baseUrl, width: hdu.width, height: hdu.height, maxZoom: hdu.maxZoom, maskShapes }, start);
+    shownGeometry = geometry;
+  } else {
+    imageView.restyle(baseUrl);
+  }
+  imageView.setCompare(comparing ? {
+    tileUrl: layerUrl(layers.second, shown.hdu),
+    mode: layout.view,
+    divider: layout.divider ?? LAYOUT_DEFAULTS.divider,
+    interval: layout.blink ?? LAYOUT_DEFAULTS.blink,
+    labels: { first: layerLabel(layers.first), second: layerLabel(layers.second) },
+  } : null);
+  const readBand = base === COMPOSITE_LAYER ? shown.band : base;
+  readout.setSource({
+    field: field.id, band: readBand, hdu: shown.hdu, hduName: hdu.name, width: hdu.width, height: hdu.height,
+    sky: hdu.sky ?? null, skyError: hdu.skyError ?? null, wholeField,
+    channels: base === COMPOSITE_LAYER ? CHANNELS.map((channel) => ({ channel, band: channels[channel] })) : undefined,
+  });
+  resolveComposite();
+}
+
+// The server's resolved composite for the settings now in use, kept for the colour controls.
+let resolvedColour = null;
+
+function lastResolvedColour(colour) {
+  return resolvedColour !== null && resolvedColour.for === colourKey(colour) ? resolvedColour.value : null;
+}
+
+function colourKey(colour) {
+  return JSON.stringify([field?.id, shown?.hdu, colour, colour.rgb === 'each' ? state.current.display : null]);
+}
+
+async function resolveComposite() {
+  const { colour, display } = state.current;
+  if (colour.rgb === null || field === null) {
+    compositeRequest?.abort();
+    message.clear('colour');
+    return;
+  }
+  const key = colourKey(colour);
+  if (resolvedColour?.for === key) return;
+  compositeRequest?.abort();
+  const request = new AbortController();
+  compositeRequest = request;
+  const channels = channelsOf(field, colour);
+  try {
+    const dto = await getCompositeDisplay({ field: field.id, hdu: shown.hdu }, display, { ...colour, ...channels }, request.signal);
+    if (request.signal.aborted) return;
+    resolvedColour = { for: key, value: readResolvedColour(dto) };
+    message.clear('colour');
+    colourControls.show(state.current.colour, channelsOf(field, state.current.colour), lastResolvedColour(state.current.colour));
+  } catch (error) {
+    if (error?.name === 'AbortError' || request.signal.aborted) return;
+    message.show(`This colour composite cannot be drawn: ${error.detail || error.message}`, 'colour');
+  }
+}
+
+// Which parts of the display panel apply: Lupton's composite has its own tone curve and limits, and no composite
+// takes a palette.
+function showSectionsFor(rgb) {
+  const root = panelRoot;
+  setSectionActive(root.querySelector('[data-role=limits-section]'), rgb !== 'lupton');
+  setSectionActive(root.querySelector('[data-role=stretch-section]'), rgb !== 'lupton');
+  setSectionActive(root.querySelector('[data-role=colour-bar-section]'), rgb === null);
+  const note = root.querySelector('[data-role=palette-inactive]');
+  setSectionActive(root.querySelector('[data-role=palette-list]'), rgb === null, note);
+  setSectionActive(root.querySelector('[data-role=cubehelix]'), rgb === null);
+}
+
 // Each palette's own masked colour (from /api/palettes): a colour none of its values can pass for. Used while
 // the URL names none, so a colourful palette never shares its masked colour with one of its own steps.
 const paletteMasks = new Map();
 
 function paintMask(display) {
   const root = document.documentElement.style;
-  const own = paletteMasks.get(display.palette ?? 'gray') ?? defaultMask;
+  // Any colour can be a composite's: it keeps the page's own masked colour.
+  const own = state.current.colour.rgb !== null ? defaultMask : paletteMasks.get(display.palette ?? 'gray') ?? defaultMask;
   panel.palette.setDefaultMask(own);
   root.setProperty('--mask-colour', `#${display.masked ?? own}`);
 }
@@ -231,8 +413,26 @@ function applyDisplay(next) {
     panel.show(next, panel.resolved);
     return;
   }
-  imageView.restyle(tileUrlTemplate(source, next));
+  render();
   sync.update(source, next);
+}
+
+// New colour settings: a change of mode or of the red channel's band reopens the field (the chip picker lists the
+// red band's chips); anything else redraws.
+function applyColour(next) {
+  const before = state.current.colour;
+  if (sameColour(before, next)) return;
+  state.update({ colour: next });
+  paintMask(state.current.display);
+  if (field === null) return;
+  const reopen = (before.rgb === null) !== (next.rgb === null) || channelsOf(field, before).red !== channelsOf(field, next).red;
+  if (reopen) open(field, { band: state.current.band, hdu: shown?.hdu ?? null });
+  else render();
+}
+
+function applyLayout(next) {
+  state.update({ layout: next });
+  render();
 }
 
 async function fitLimitsToView() {
@@ -256,6 +456,8 @@ async function loadPalettes() {
       if (typeof palette.defaultMasked === 'string') paletteMasks.set(palette.name, palette.defaultMasked.replace('#', '').toLowerCase());
     }
     panel.palette.setPalettes(palettes);
+    panes.setPalettes(palettes);
+    showSectionsFor(state.current.colour.rgb);
     paintMask(state.current.display);
   } catch (error) {
     panel.palette.showUnavailable(`The palettes could not be listed: ${error.message}`);
@@ -303,6 +505,14 @@ async function switchField(id) {
       return;
     }
     message.clear();
+    // Another field has other bands: its channels and compared layers start from its own defaults.
+    if (fresh.id !== field?.id) {
+      const { colour, layout } = state.current;
+      state.update({
+        colour: { ...colour, red: null, green: null, blue: null, channels: undefined },
+        layout: { ...layout, first: null, second: null },
+      });
+    }
     open(fresh);
   } catch (error) {
     message.show(`Field “${id}” could not be loaded: ${error.message}`);
@@ -337,6 +547,18 @@ function wireEvents() {
   imageView.addEventListener('pointer', (event) => readout.pointAt(event.detail));
   panel.addEventListener('change', (event) => applyDisplay(event.detail));
   panel.addEventListener('fit-view', () => fitLimitsToView());
+  colourControls.addEventListener('change', (event) => {
+    message.clear('colour');
+    applyColour(event.detail);
+  });
+  layoutControls.addEventListener('change', (event) => applyLayout(event.detail));
+  imageView.addEventListener('divider', (event) => state.update({ layout: { ...state.current.layout, divider: event.detail } }));
+  panes.addEventListener('viewchange', (event) => state.update(event.detail));
+  panes.addEventListener('palette', (event) => {
+    const palettes = CHANNELS.map((channel, i) => state.current.layout.panePalettes?.[i] ?? 'gray');
+    palettes[CHANNELS.indexOf(event.detail.channel)] = event.detail.palette;
+    applyLayout({ ...state.current.layout, panePalettes: palettes });
+  });
 }
 
 async function start() {

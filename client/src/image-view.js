@@ -4,6 +4,7 @@ import { Map as LeafletMap, SVG, Rectangle, TileLayer, Control, Point, Util } fr
 import { createPixelCrs, imageBounds } from './pixel-crs.js';
 import { MaskLayer } from './mask-layer.js';
 import { FitControl } from './fit-control.js';
+import { CompareLayer } from './compare-layer.js';
 import { BOUNDS_PAD, centringZoom } from './view-limits.js';
 
 // Beyond native resolution each image pixel becomes an 8 x 8 block at most.
@@ -23,7 +24,9 @@ function sameGeometry(a, b) {
 /**
  * Fires `viewchange` ({x, y, z}: the centre in FITS pixels and the zoom) when a pan or zoom ends, and `pointer`
  * ({x, y} in FITS pixels, or null when the pointer leaves) whenever the image point under the pointer changes. When
- * the view is worked from the keyboard, the point probed is the one under a crosshair at its middle.
+ * the view is worked from the keyboard, the point probed is the one under a crosshair at its middle. Fires `moving`
+ * ({x, y, z}) all through a pan or zoom, for views kept in step with this one, and `divider` (a share of the width)
+ * when the comparison's divider was moved.
  */
 export class ImageView extends EventTarget {
   #container;
@@ -38,6 +41,12 @@ export class ImageView extends EventTarget {
   #overlays = new Set();
   // Keys move the map under a crosshair at the middle, and the readout follows that instead of the mouse.
   #keyboardProbe = false;
+  #compare = null;
+  #compareSpec = null;
+  #marker = null;
+  #markerElement = null;
+  // Set while the view is moved to follow another, so that it does not report the move back.
+  #following = false;
 
   constructor(container) {
     super();
@@ -46,6 +55,13 @@ export class ImageView extends EventTarget {
     container.addEventListener('blur', () => {
       if (this.#keyboardProbe) this.#setPointer(null);
       this.#setKeyboardProbe(false);
+    });
+    // pointermove, not Leaflet's mousemove: Chromium gives a mouse event whole CSS pixels, a pointer event the
+    // fractional position, and past native zoom a truncated position can fall in the neighbouring image pixel.
+    container.addEventListener('pointermove', (event) => {
+      if (this.#map === null) return;
+      this.#setKeyboardProbe(false);
+      this.#setPointer(this.#map.mouseEventToContainerPoint(event));
     });
     // The display panel opening or closing resizes the view without resizing the window.
     new ResizeObserver(() => this.#map?.invalidateSize({ pan: false })).observe(container);
@@ -190,6 +206,50 @@ export class ImageView extends EventTarget {
     this.#tiles.addTo(this.#map);
   }
 
+  /** Goes to `view` ({x, y, z}) at once, firing no `moving`: for a view that follows another. */
+  follow(view) {
+    if (this.#map === null || view === null) return;
+    const here = this.view;
+    if (here.x === view.x && here.y === view.y && here.z === view.z) return;
+    this.#following = true;
+    try {
+      this.#map.setView([view.y, view.x], view.z, { animate: false });
+    } finally {
+      this.#following = false;
+    }
+  }
+
+  /**
+   * Marks FITS position `at` ({x, y}) with a small cross: the point another view is pointed at. Null removes it.
+   */
+  setMarker(at) {
+    this.#marker = at;
+    this.#placeMarker();
+  }
+
+  #placeMarker() {
+    if (this.#markerElement === null) {
+      this.#markerElement = document.createElement('div');
+      this.#markerElement.className = 'echo-marker';
+      this.#markerElement.setAttribute('aria-hidden', 'true');
+      this.#container.append(this.#markerElement);
+    }
+    const at = this.#marker;
+    this.#markerElement.hidden = at === null || this.#map === null;
+    if (this.#markerElement.hidden) return;
+    const point = this.#map.latLngToContainerPoint([at.y, at.x]);
+    this.#markerElement.style.transform = `translate(${Math.round(point.x)}px, ${Math.round(point.y)}px)`;
+  }
+
+  /**
+   * Lays a second picture over the image to compare with (see compare-layer.js): {tileUrl, mode: "swipe" |
+   * "blink", divider, interval, labels}; null shows the image alone.
+   */
+  setCompare(spec) {
+    this.#compareSpec = spec;
+    this.#compare?.set(spec);
+  }
+
   fitImage(animate = true) {
     if (this.#map === null) return;
     this.#map.fitBounds(this.#bounds, { animate, padding: [16, 16] });
@@ -197,6 +257,8 @@ export class ImageView extends EventTarget {
 
   #createMap(geometry) {
     if (this.#map !== null) {
+      this.#compare?.remove();
+      this.#compare = null;
       this.#map.remove();
       this.#tiles = null;
       this.#mask = null;
@@ -240,10 +302,6 @@ export class ImageView extends EventTarget {
 
     map.on('zoomend', () => this.#markPastNative());
     map.on('moveend', () => this.dispatchEvent(new CustomEvent('viewchange', { detail: this.view })));
-    map.on('mousemove', (event) => {
-      this.#setKeyboardProbe(false);
-      this.#setPointer(event.containerPoint);
-    });
     map.on('mouseout', () => {
       if (!this.#keyboardProbe) this.#setPointer(null);
     });
@@ -254,9 +312,13 @@ export class ImageView extends EventTarget {
     map.on('resize', () => {
       if (this.#keyboardProbe) this.#setPointer(map.getSize().divideBy(2));
     });
+    map.on('move zoom viewreset', () => {
+      if (this.#marker !== null) this.#placeMarker();
+    });
     // The map moving under a still pointer (wheel, keys, buttons) changes the pixel under it too.
     map.on('move', () => {
       if (this.#pointer !== null) this.#emitPointer();
+      if (!this.#following) this.dispatchEvent(new CustomEvent('moving', { detail: this.view }));
     });
   }
 
@@ -273,6 +335,9 @@ export class ImageView extends EventTarget {
     };
     const layer = new TileLayer(tileUrl, { ...grid, className: 'image-tiles' });
     this.#mask = new MaskLayer(layer, { ...grid, geometry, shapes: maskShapes, pane: MASK_PANE, className: 'mask-tiles' }).addTo(this.#map);
+    this.#compare = new CompareLayer(this.#map, this.#container, { ...grid, geometry });
+    this.#compare.addEventListener('divider', (e) => this.dispatchEvent(new CustomEvent('divider', { detail: e.detail })));
+    this.#compare.set(this.#compareSpec);
     return layer;
   }
 

@@ -37,19 +37,21 @@ export class PixelReadout {
     this.#canvasPair = element.querySelector('[data-role="canvas"]');
     this.#canvasX = element.querySelector('[data-role="canvas-x"]');
     this.#canvasY = element.querySelector('[data-role="canvas-y"]');
-    this.#sky = new SkyReadout(element.querySelector('[data-role="sky"]'));
+    // The side-by-side panes' small readouts have no sky row and no whole-field pixel.
+    const skyRow = element.querySelector('[data-role="sky"]');
+    this.#sky = skyRow === null ? null : new SkyReadout(skyRow);
     this.#probe = probe;
   }
 
   /**
    * The HDU being viewed: {field, band, hdu, hduName, width, height, sky, skyError, wholeField} (sky null: no
-   * celestial WCS; wholeField true: hdu is the band's canvas).
+   * celestial WCS; wholeField true: hdu is the band's canvas), and `channels` for a composite's bands.
    */
   setSource(source) {
     this.#forget();
     this.#source = source;
-    this.#sky.setSource(source.sky ?? null, source.skyError ?? null);
-    this.#canvasPair.hidden = !source.wholeField;
+    this.#sky?.setSource(source.sky ?? null, source.skyError ?? null);
+    if (this.#canvasPair !== null) this.#canvasPair.hidden = !source.wholeField;
     this.#showNothing();
   }
 
@@ -87,11 +89,11 @@ export class PixelReadout {
         this.#showPixel(null, null);
       }
       this.#showValue('outside the image', 'outside');
-      this.#sky.showNothing();
+      this.#sky?.showNothing();
       return;
     }
     this.#showValue('…', 'pending');
-    this.#sky.showPending();
+    this.#sky?.showPending();
     this.#pending = { source: this.#source, x: at.x, y: at.y, sequence: this.#sequence };
     this.#schedule();
   }
@@ -119,7 +121,7 @@ export class PixelReadout {
     } catch (error) {
       if (!controller.signal.aborted && request.sequence === this.#sequence) {
         this.#showValue(`no value: ${error.detail || error.message}`, 'error');
-        this.#sky.showNothing();
+        this.#sky?.showNothing();
       }
     } finally {
       if (this.#inFlight === controller) this.#inFlight = null;
@@ -144,14 +146,14 @@ export class PixelReadout {
       return;
     }
     this.#showPixel(answer.x, answer.y);
-    this.#sky.showAnswer(answer);
+    this.#sky?.showAnswer(answer);
     this.#showMeasured(answer);
   }
 
   // The sky readout's exact point is the one on the image viewed (the canvas); the chip's own is on the chip label.
   #showWholeFieldAnswer(answer) {
     const onChip = answer.hdu !== null && answer.hdu !== undefined;
-    this.#sky.showAnswer({ ...answer, atX: answer.canvas?.x ?? null, atY: answer.canvas?.y ?? null });
+    this.#sky?.showAnswer({ ...answer, atX: answer.canvas?.x ?? null, atY: answer.canvas?.y ?? null });
     this.#showChip(onChip ? answer : null, !onChip);
     if (!onChip) {
       this.#showPixel(null, null);
@@ -163,6 +165,14 @@ export class PixelReadout {
   }
 
   #showMeasured(answer) {
+    if (answer.channels) {
+      // A composite: every band's value, masked where that band is.
+      const text = answer.channels.map((c) => `${c.short} ${c.value === null ? 'masked' : formatPixelValue(c.value)}`).join(' · ');
+      const masked = answer.channels.some((c) => c.value === null);
+      this.#showValue(text, masked ? 'masked' : 'value', masked ? null : answer.channels[0].value);
+      this.#valueLabel.dataset.values = answer.channels.map((c) => (c.value === null ? '' : String(c.value))).join(',');
+      return;
+    }
     if (answer.value === null || answer.value === undefined) {
       this.#showValue('masked', 'masked');
     } else {
@@ -175,7 +185,7 @@ export class PixelReadout {
     this.#showChip(null);
     this.#showCanvasPixel(null, null);
     this.#showPixel(null, null);
-    this.#sky.showNothing();
+    this.#sky?.showNothing();
     this.#showValue('–', 'none');
   }
 
@@ -205,6 +215,7 @@ export class PixelReadout {
   }
 
   #showCanvasPixel(px, py) {
+    if (this.#canvasX === null || this.#canvasY === null) return;
     this.#canvasX.textContent = px === null ? '–' : String(px);
     this.#canvasY.textContent = py === null ? '–' : String(py);
   }
@@ -216,6 +227,7 @@ export class PixelReadout {
 
   #showValue(text, kind, value = null) {
     this.#valueLabel.textContent = text;
+    delete this.#valueLabel.dataset.values;
     this.#valueLabel.dataset.kind = kind;
     if (value === null) delete this.#valueLabel.dataset.value;
     else this.#valueLabel.dataset.value = String(value);

@@ -1,9 +1,14 @@
 // The view state lives here and nowhere else: controls read it and ask it to change, and every change is mirrored
 // into the page URL so that reloading or sharing the link opens the same view, display settings included.
 import { EMPTY_DISPLAY, normaliseDisplay, parseDisplayQuery, displayParameters, sameDisplay } from './display-query.js';
+import { EMPTY_COLOUR, normaliseColour, parseColourQuery, colourParameters, sameColour } from './colour-query.js';
+import { EMPTY_LAYOUT, normaliseLayout, parseLayoutQuery, layoutParameters, sameLayout } from './layout-query.js';
 import { WHOLE_FIELD } from './whole-field.js';
 
-const EMPTY = Object.freeze({ field: null, band: null, hdu: null, x: null, y: null, z: null, grid: false, outlines: false, display: EMPTY_DISPLAY });
+const EMPTY = Object.freeze({
+  field: null, band: null, hdu: null, x: null, y: null, z: null, grid: false, outlines: false,
+  display: EMPTY_DISPLAY, colour: EMPTY_COLOUR, layout: EMPTY_LAYOUT,
+});
 const VIEW_KEYS = Object.freeze(['field', 'band', 'hdu', 'x', 'y', 'z']);
 // Overlays shown over the image: in the URL only while on (`grid=1`, `outlines=1`).
 const FLAG_KEYS = Object.freeze(['grid', 'outlines']);
@@ -51,14 +56,16 @@ function normalise(state) {
     grid: state.grid === true,
     outlines: state.outlines === true,
     display: normaliseDisplay(state.display ?? EMPTY_DISPLAY),
+    colour: normaliseColour(state.colour ?? EMPTY_COLOUR),
+    layout: normaliseLayout(state.layout ?? EMPTY_LAYOUT),
   });
 }
 
 /**
  * Reads a view from a URL query such as `?field=demo&band=red&hdu=3&x=1024.5&y=2048.5&z=3&grid=1&outlines=1&stretch=log&a=300`
- * (`hdu=canvas`: the band's whole field):
- * the display parameters are those of the tile URLs, except that `masked` is the colour the page paints masked
- * pixels in.
+ * (`hdu=canvas`: the band's whole field): the display and colour parameters are those of the tile URLs, except
+ * that `masked` is the colour the page paints masked pixels in; the layout parameters (layout-query.js) are the
+ * page's own.
  */
 export function parseViewQuery(search) {
   const query = new URLSearchParams(search);
@@ -72,6 +79,8 @@ export function parseViewQuery(search) {
     grid: query.get('grid')?.trim() === '1',
     outlines: query.get('outlines')?.trim() === '1',
     display: parseDisplayQuery(query),
+    colour: parseColourQuery(query),
+    layout: parseLayoutQuery(query),
   });
 }
 
@@ -85,6 +94,8 @@ export function formatViewQuery(state) {
     if (state[key] === true) query.set(key, '1');
   }
   for (const [name, value] of displayParameters(state.display ?? EMPTY_DISPLAY)) query.set(name, value);
+  for (const [name, value] of colourParameters(state.colour ?? EMPTY_COLOUR)) query.set(name, value);
+  for (const [name, value] of layoutParameters(state.layout ?? EMPTY_LAYOUT)) query.set(name, value);
   const text = query.toString();
   return text ? `?${text}` : '';
 }
@@ -113,11 +124,12 @@ export class ViewState extends EventTarget {
     return this.#state;
   }
 
-  /** Merges `changes` into the state; null clears a key. `display` replaces the display settings as a whole. */
+  /** Merges `changes` into the state; null clears a key. `display`, `colour` and `layout` each replace that part as a whole. */
   update(changes) {
     const next = normalise({ ...this.#state, ...changes });
     const same = (key) => next[key] === this.#state[key];
-    if (VIEW_KEYS.every(same) && FLAG_KEYS.every(same) && sameDisplay(next.display, this.#state.display)) return;
+    if (VIEW_KEYS.every(same) && FLAG_KEYS.every(same) && sameDisplay(next.display, this.#state.display)
+      && sameColour(next.colour, this.#state.colour) && sameLayout(next.layout, this.#state.layout)) return;
     this.#state = next;
     this.#mirrorToUrl();
     this.dispatchEvent(new CustomEvent('change', { detail: next }));

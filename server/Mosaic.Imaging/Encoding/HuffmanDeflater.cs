@@ -51,8 +51,9 @@ internal sealed class HuffmanDeflater
         Span<uint> codes = stackalloc uint[Literals];
         HuffmanCode.Codes(lengths[..Literals], codes);
 
-        // Worst case: 15 bits a byte, plus the header.
+        // Worst case: 15 bits a byte, plus the header, plus 8 bytes for the main loop's store past the end.
         var span = _output.GetSpan((int)Math.Min(int.MaxValue, (long)data.Length * MaxCodeLength / 8 + 512));
+        if (span.Length < (long)data.Length * MaxCodeLength / 8 + 512) throw new InvalidOperationException("the output buffer is too small for a deflate block");
         var at = 0;
         Put(span, ref at, final ? 1u : 0u, 1);
         Put(span, ref at, 2, 2); // dynamic Huffman codes
@@ -67,22 +68,29 @@ internal sealed class HuffmanDeflater
         var count = _bitCount;
         var n = data.Length;
         var i = 0;
-        // Two codes of at most 15 bits fit above fewer than 32 pending bits in the 64-bit register.
-        for (; i <= n - 2; i += 2)
+        // Byte-granular flush each step leaves fewer than 8 pending bits, so three codes of at most 15 bits fit in the
+        // 64-bit register. Storing all 8 bytes and advancing by the whole bytes pending has no branch: mixed short and
+        // long codes (a dark image's many zeros) made a flush branch unpredictable. Bytes stored past the advance are
+        // overwritten by the next store; the span's slack covers the last one.
+        ref var output = ref MemoryMarshal.GetReference(span);
+        // Put leaves up to 31 bits pending: down to fewer than 8 first.
+        for (; count >= 8; count -= 8, bits >>= 8) span[at++] = (byte)bits;
+        for (; i <= n - 3; i += 3)
         {
             var e0 = Unsafe.Add(ref entry, Unsafe.Add(ref source, i));
             var e1 = Unsafe.Add(ref entry, Unsafe.Add(ref source, i + 1));
+            var e2 = Unsafe.Add(ref entry, Unsafe.Add(ref source, i + 2));
             bits |= (ulong)(e0 & 0xFFFF) << count;
             count += (int)(e0 >> 16);
             bits |= (ulong)(e1 & 0xFFFF) << count;
             count += (int)(e1 >> 16);
-            if (count >= 32)
-            {
-                BinaryPrimitives.WriteUInt32LittleEndian(span[at..], (uint)bits);
-                at += 4;
-                bits >>= 32;
-                count -= 32;
-            }
+            bits |= (ulong)(e2 & 0xFFFF) << count;
+            count += (int)(e2 >> 16);
+            Unsafe.WriteUnaligned(ref Unsafe.Add(ref output, at), BitConverter.IsLittleEndian ? bits : BinaryPrimitives.ReverseEndianness(bits));
+            var whole = count & ~7;
+            at += whole >> 3;
+            bits >>= whole;
+            count -= whole;
         }
         _bits = bits;
         _bitCount = count;

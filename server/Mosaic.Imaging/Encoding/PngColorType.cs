@@ -7,4 +7,5 @@ public enum PngColorType : byte
     Rgb = 2,
     Indexed = 3,
     GrayAlpha = 4,
+    Rgba = 6,
 }

@@ -39,7 +39,8 @@ public sealed class PngWriter : IDisposable
             PngColorType.Gray or PngColorType.Indexed => 1,
             PngColorType.GrayAlpha => 2,
             PngColorType.Rgb => 3,
-            _ => throw new ArgumentOutOfRangeException(nameof(colorType), colorType, "colorType must be Gray, Rgb, Indexed or GrayAlpha"),
+            PngColorType.Rgba => 4,
+            _ => throw new ArgumentOutOfRangeException(nameof(colorType), colorType, "colorType must be Gray, Rgb, Indexed, GrayAlpha or Rgba"),
         };
         if (colorType == PngColorType.Indexed)
         {

@@ -1,6 +1,7 @@
 using System.ComponentModel;
 using System.Text;
 using Microsoft.AspNetCore.Http.HttpResults;
+using Mosaic.Server.Composite;
 using Mosaic.Server.Errors;
 using Mosaic.Server.Fields;
 using Mosaic.Server.Rendering;
@@ -27,8 +28,11 @@ public static class RenderEndpoints
         [Description("Last column (inclusive).")] string? x1,
         [Description("Last row (inclusive), drawn at the top.")] string? y1,
         [AsParameters] DisplayParameters display,
+        [AsParameters] CompositeParameters composite,
         HttpContext context, FieldCatalog catalog, RegionImageService images)
     {
+        if (CompositeQuery.Parse(composite, display, context.Request.Query) is { } request)
+            return RenderComposite(field, hdu, x0, y0, x1, y1, request, context, catalog, images);
         var target = catalog.Get(field).ResolveBand(band);
         var image = RegionQuery.ResolveHdu(target, hdu);
         var box = RegionQuery.RequiredBox(image, x0, y0, x1, y1);
@@ -39,6 +43,31 @@ public static class RenderEndpoints
         var png = images.RenderPng(image, box, settings);
 
         var name = $"{target.Field.Id}-{target.Name}-{image.Index}-{box.X0}-{box.Y0}-{box.X1}-{box.Y1}.png";
+        context.Response.Headers.ContentDisposition = $"inline; filename=\"{SafeFileName(name)}\"";
+        context.Response.Headers.CacheControl = "no-cache";
+        return TypedResults.File(png, "image/png");
+    }
+
+    private static FileContentHttpResult RenderComposite(string field, string? hdu, string? x0, string? y0, string? x1, string? y1,
+        CompositeRequest request, HttpContext context, FieldCatalog catalog, RegionImageService images)
+    {
+        var found = catalog.Get(field);
+        if (string.IsNullOrWhiteSpace(hdu))
+        {
+            // As for one band: without 'hdu' the three bands must each hold one image.
+            var bands = request.Bands.AsEnumerable().Select(name => found.Bands.FirstOrDefault(b => string.Equals(b.Name, name, StringComparison.OrdinalIgnoreCase)));
+            if (bands.Any(b => b is not null && b.Hdus.Count > 1))
+                throw MosaicRequestException.BadParameter("hdu", $"A band of the composite has several image HDUs: name one with 'hdu'.");
+        }
+        var target = CompositeTarget.Resolve(found, request.Bands, hdu);
+        var image = target.Hdus.Red;
+        var box = RegionQuery.RequiredBox(image, x0, y0, x1, y1);
+        if (box.PixelCount > RegionImageService.MaxPixels)
+            throw MosaicRequestException.BadParameter("x0,y0,x1,y1",
+                $"The box is {box.Width} x {box.Height} = {box.PixelCount} pixels; render.png makes at most {RegionImageService.MaxPixels} (50 megapixels): ask for a smaller box.");
+        var png = images.RenderCompositePng(target, box, request.Settings);
+        var bandNames = string.Join('-', target.Bands.AsEnumerable().Select(b => b.Name));
+        var name = $"{found.Id}-{bandNames}-{image.Index}-{box.X0}-{box.Y0}-{box.X1}-{box.Y1}.png";
         context.Response.Headers.ContentDisposition = $"inline; filename=\"{SafeFileName(name)}\"";
         context.Response.Headers.CacheControl = "no-cache";
         return TypedResults.File(png, "image/png");
