@@ -1,6 +1,8 @@
 using System.Buffers;
 using System.Runtime.CompilerServices;
 using System.Runtime.InteropServices;
+using System.Runtime.Intrinsics;
+using System.Runtime.Intrinsics.X86;
 using Mosaic.Canvas.Mapping;
 
 namespace Mosaic.Canvas.Resampling;
@@ -161,6 +163,12 @@ internal static class BandResampler
                     {
                         StepWindow.Narrow(startX, sx, 0.5, uEnd + 1, ref lo, ref hi);
                         StepWindow.Narrow(startY, sy, 0.5, vEnd + 1, ref lo, ref hi);
+                        if (best is null)
+                        {
+                            if (lo < hi) FillCell(chip, rect, startX, sx, startY, sy, lo, hi, outRow.Slice(c - box.X0, end - c + 1));
+                            c = end + 1;
+                            continue;
+                        }
                     }
                     for (var m = lo; m < hi; m++)
                     {
@@ -211,7 +219,63 @@ internal static class BandResampler
         }
     }
 
+    /// <summary>
+    /// Steps [lo, hi) of one cell of one canvas row, for the common case: finite nodes, no overlap to settle. Kept
+    /// apart from the exact-chain path so the loop stays in registers; the same arithmetic as there, bit for bit.
+    /// </summary>
+    private static void FillCell(PlacedChip chip, ChipRect rect, double startX, double sx, double startY, double sy, int lo, int hi, Span<float> output)
+    {
+        int width = chip.Plane.Width, height = chip.Plane.Height;
+        double uEnd = width - 0.5, vEnd = height - 0.5;
+        int rx0 = rect.X0, ry0 = rect.Y0, rw = rect.Width;
+        uint spanX = (uint)(rect.X1 - rx0), spanY = (uint)(rect.Y1 - ry0);
+        ref var origin = ref MemoryMarshal.GetReference(rect.Values);
+        ref var target = ref MemoryMarshal.GetReference(output);
+        for (var m = lo; m < hi; m++)
+        {
+            double u = startX + sx * m - 1, v = startY + sy * m - 1;
+            // Finite here, so a failed test means outside the chip.
+            if (!(u >= -0.5 && u < uEnd && v >= -0.5 && v < vEnd)) continue;
+            // floor for u >= -1, without a call.
+            int pi = (int)(u + 1) - 1, pj = (int)(v + 1) - 1;
+            if ((uint)(pi - rx0) < spanX && (uint)(pj - ry0) < spanY)
+            {
+                // All four neighbours lie in the rectangle (the test above proves it, so no bounds checks).
+                ref var p = ref Unsafe.Add(ref origin, (pj - ry0) * rw + (pi - rx0));
+                var value = Bilinear(ref p, rw, u - pi, v - pj);
+                if (double.IsFinite(value))
+                {
+                    Unsafe.Add(ref target, m) = (float)value;
+                    continue;
+                }
+            }
+            Unsafe.Add(ref target, m) = Sample(chip, rect, u, v, width, height);
+        }
+    }
+
+    /// <summary>
+    /// (1 - wy) ((1 - wx) p00 + wx p10) + wy ((1 - wx) p01 + wx p11), each product and sum rounded as written; NaN or
+    /// infinity when any of the four is (it survives even a zero weight). The vector form widens all four floats at
+    /// once: converting them one by one would chain every pixel to the last through the registers' upper halves.
+    /// </summary>
+    [MethodImpl(MethodImplOptions.AggressiveInlining)]
+    private static double Bilinear(ref float p, int rowStride, double wx, double wy)
+    {
+        ref var q = ref Unsafe.Add(ref p, rowStride);
+        if (Avx.IsSupported)
+        {
+            var four = Vector128.Create(
+                Unsafe.ReadUnaligned<long>(ref Unsafe.As<float, byte>(ref p)),
+                Unsafe.ReadUnaligned<long>(ref Unsafe.As<float, byte>(ref q))).AsSingle();
+            var weighted = Avx.ConvertToVector256Double(four) * Vector256.Create(1 - wx, wx, 1 - wx, wx);
+            var sums = Avx.HorizontalAdd(weighted, weighted);
+            return (1 - wy) * sums.GetElement(0) + wy * sums.GetElement(2);
+        }
+        return (1 - wy) * ((1 - wx) * p + wx * Unsafe.Add(ref p, 1)) + wy * ((1 - wx) * q + wx * Unsafe.Add(ref q, 1));
+    }
+
     /// <summary>Bilinear in the four neighbours when all are finite, else the nearest pixel; (u, v) 0-based and held by the chip.</summary>
+    [MethodImpl(MethodImplOptions.NoInlining)]
     private static float Sample(PlacedChip chip, ChipRect rect, double u, double v, int width, int height)
     {
         int i = (int)Math.Floor(u), j = (int)Math.Floor(v);
