@@ -13,18 +13,11 @@ internal static class StepWindow
     /// </summary>
     public static void Narrow(double start, double step, double low, double high, ref int first, ref int end)
     {
-        double from, to;
-        if (step > MinStep)
-        {
-            from = (low - start) / step;
-            to = (high - start) / step;
-        }
-        else if (step < -MinStep)
-        {
-            from = (high - start) / step;
-            to = (low - start) / step;
-        }
-        else return;
+        if (!(Math.Abs(step) > MinStep)) return;
+        // One division; the margin covers the reciprocal's rounding too.
+        var inverse = 1 / step;
+        double from = (low - start) * inverse, to = (high - start) * inverse;
+        if (step < 0) (from, to) = (to, from);
         // Clamped in double first, so a far-off range never overflows the conversion.
         first = (int)Math.Max(first, Math.Min(end, Math.Floor(from) - 1));
         end = (int)Math.Min(end, Math.Max(first, Math.Ceiling(to) + 1));
