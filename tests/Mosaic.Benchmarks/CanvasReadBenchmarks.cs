@@ -35,32 +35,13 @@ public class CanvasReadBenchmarks
         {
             writer.WriteEmptyPrimary([]);
             foreach (var (east, north, turn) in layout)
-                writer.WriteFloatImage(Cards(east, north, turn), Side, Side, pixels);
+                writer.WriteFloatImage(BenchmarkChipHeader.Cards(Side, Scale, east, north, turn), Side, Side, pixels);
         }
         _fits = FitsFile.Open(path);
         _chips = _fits.Hdus.Skip(1).Select(h => new CanvasChip($"CHIP{h.Index}", h.Index, h.Image!, Wcs.Wcs.From(h.Header))).ToList();
         _buffer = new float[Strip * 4200];
     }
 
-    private static List<HeaderCard> Cards(double east, double north, double turn)
-    {
-        const double ra0 = 150, dec0 = 2;
-        // Small-offset tangent plane: exact enough to lay out a benchmark field.
-        var dec = dec0 + north * Scale;
-        var ra = ra0 + east * Scale / Math.Cos(dec0 * Math.PI / 180);
-        double t = turn * Math.PI / 180;
-        return
-        [
-            new("CTYPE1", "RA---TAN-SIP", null), new("CTYPE2", "DEC--TAN-SIP", null),
-            new("CRPIX1", (Side + 1) / 2.0, null), new("CRPIX2", (Side + 1) / 2.0, null),
-            new("CRVAL1", ra, null), new("CRVAL2", dec, null),
-            new("CD1_1", -Scale * Math.Cos(t), null), new("CD1_2", Scale * Math.Sin(t), null),
-            new("CD2_1", Scale * Math.Sin(t), null), new("CD2_2", Scale * Math.Cos(t), null),
-            new("A_ORDER", 2L, null), new("B_ORDER", 2L, null),
-            new("A_2_0", 1.5e-6, null), new("A_0_2", -1e-6, null), new("A_1_1", 5e-7, null),
-            new("B_2_0", -8e-7, null), new("B_0_2", 1.2e-6, null), new("B_1_1", 6e-7, null),
-        ];
-    }
 
     [GlobalCleanup]
     public void Cleanup()
