@@ -3,8 +3,7 @@
 // coordinates, so they pan and zoom with the image. A name wider than its chip on screen (zoomed far out) is left
 // out rather than spill over the next chip's.
 import { LayerGroup, Polygon, Marker, DivIcon } from 'leaflet';
-
-const toLatLng = ([x, y]) => [y, x];
+import { toLatLng } from './pixel-crs.js';
 
 // Screen pixels a name keeps clear of its chip's sides.
 const LABEL_MARGIN = 6;

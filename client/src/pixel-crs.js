@@ -24,3 +24,8 @@ export function imageBounds(width, height) {
 export function containingPixel(coordinate) {
   return Math.floor(coordinate + 0.5);
 }
+
+/** The map position of FITS point [x, y], as the server gives outlines and grid lines: Leaflet wants [lat, lng]. */
+export function toLatLng([x, y]) {
+  return [y, x];
+}

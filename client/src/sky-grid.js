@@ -3,12 +3,11 @@
 // its label (a label that would overlap one already placed is left out). A new grid replaces the old one only
 // once it has arrived, so panning never blanks or flickers the grid.
 import { LayerGroup, Polyline, Marker, DivIcon } from 'leaflet';
+import { toLatLng } from './pixel-crs.js';
 import { clipPolyline } from './clip-polyline.js';
 
 // Screen pixels kept clear between two labels.
 const LABEL_GAP = 4;
-
-const toLatLng = ([x, y]) => [y, x];
 
 export class SkyGrid {
   #view;

@@ -21,7 +21,7 @@ public sealed record CompositeTarget(Channels<FieldHdu> Hdus)
         var hdus = bands.Select(b => b.ResolveHdu(hdu)).ToArray();
         var grids = hdus.Select(PixelGrid.Of).ToArray();
         // The contract compares WCS only where all three bands have a celestial one.
-        var compareFrames = grids.All(g => g.Frame is not null);
+        var compareFrames = grids.All(g => g.Wcs is not null);
         for (var c = 1; c < 3; c++)
             if (grids[0].DifferenceFrom(grids[c], compareFrames) is { } difference)
                 throw new MosaicRequestException(StatusCodes.Status422UnprocessableEntity, "Bands on different pixel grids",
