@@ -14,7 +14,7 @@ import { DisplayPanel } from './display-panel.js';
 import { DisplaySync } from './display-sync.js';
 import { sameDisplay, droppedParameters } from './display-query.js';
 import { CHANNELS, channelBands, sameColour } from './colour-query.js';
-import { COMPOSITE_LAYER, LAYOUT_DEFAULTS } from './layout-query.js';
+import { COMPOSITE_LAYER, LAYOUT_DEFAULTS, sameLayout } from './layout-query.js';
 import { defaultChannels } from './band-order.js';
 import { probeChannels } from './channel-probe.js';
 import { ColourControls, readResolvedColour } from './colour-controls.js';
@@ -31,8 +31,17 @@ import { ScaleBar } from './scale-bar.js';
 import { WHOLE_FIELD, isWholeField, wholeFieldEntry, bandEntries } from './whole-field.js';
 import { ChipOutlines } from './chip-outlines.js';
 import { OutlineToggle } from './outline-toggle.js';
+import { MarkerControls } from './marker-controls.js';
+import { ExportPanel } from './export-panel.js';
+import { ViewLink, readLink, currentLinkState } from './view-link.js';
+import { SharePanel } from './share-panel.js';
+import { Meeting } from './meeting.js';
 
-const state = ViewState.fromUrl();
+// A link of a format version this page cannot read opens only its field (view-link.js says why).
+const opening = readLink(location.search);
+const state = new ViewState(opening.view);
+const viewLink = new ViewLink(state);
+const share = new SharePanel(document.getElementById('share-panel'), document.getElementById('share-toggle'), state, viewLink, currentLinkState);
 const imageView = new ImageView(document.getElementById('image-view'));
 const fieldPicker = new FieldPicker(document.getElementById('field-picker'), document.getElementById('field-note'));
 const bandPicker = new BandPicker(document.getElementById('band-picker'));
@@ -59,6 +68,14 @@ const compass = new Compass(document.getElementById('compass'));
 const scaleBar = new ScaleBar(document.getElementById('scale-bar'));
 const outlines = new ChipOutlines(imageView);
 const outlineToggle = new OutlineToggle(document.getElementById('outline-toggle'), document.getElementById('canvas-note'));
+const markers = new MarkerControls(state, imageView, message);
+const exportPanel = new ExportPanel(document.getElementById('export-panel'), document.getElementById('export-toggle'),
+  document.getElementById('image-view'), { imageView, markerLayer: markers.layer, state });
+const meeting = new Meeting({
+  root: document.getElementById('meeting-panel'), toggle: document.getElementById('meeting-toggle'), stage, state, imageView,
+  viewElement: document.getElementById('image-view'), showView,
+  guarded: [panelRoot, ...['field-picker', 'band-picker', 'hdu-picker', 'goto-box'].map((id) => document.getElementById(id))],
+});
 
 let fields = [];
 let field = null;
@@ -156,6 +173,8 @@ function open(candidate, { band: bandName = null, hdu: hduIndex = null, view = n
   outlineToggle.setCanvas(wholeField ? hdu : null);
 
   shown = { ...source, ready: hdu.pyramid?.state === 'ready', sky: hdu.sky ?? null };
+  viewLink.setSource(source, shown.sky !== null, { width: hdu.width, height: hdu.height });
+  share.setField(candidate.id);
   shownGeometry = null;
   showSky(source, hdu);
   render(view);
@@ -175,6 +194,7 @@ function showSky(source, hdu) {
   gridToggle.setAvailable(hasSky, hdu.skyError);
   pixelScale = hasSky && Number.isFinite(hdu.sky.pixelScale) ? hdu.sky.pixelScale : null;
   skySync.setSource(source, hasSky);
+  markers.setSource(source, hasSky);
 }
 
 // After every pan and zoom: the scale bar follows at once, the grid and compass when the server answers.
@@ -542,6 +562,8 @@ function wireEvents() {
   });
   gridToggle.addEventListener('toggle', (event) => setGrid(event.detail));
   outlineToggle.addEventListener('toggle', (event) => setOutlines(event.detail));
+  exportPanel.addEventListener('saved', () => message.clear('picture'));
+  exportPanel.addEventListener('failed', (event) => message.show(`Picture: ${event.detail.detail || event.detail.message}`, 'picture'));
   skySync.addEventListener('sky', (event) => onSky(event.detail));
   skySync.addEventListener('clear', (event) => onSkyCleared(event.detail));
   imageView.addEventListener('pointer', (event) => readout.pointAt(event.detail));
@@ -561,6 +583,52 @@ function wireEvents() {
   });
 }
 
+// The band and HDU open() shows for what the state asks: a colour composite shows its red channel's chips.
+function landingSource(candidate, wanted) {
+  const band = wanted.colour.rgb !== null ? readableBand(candidate, channelsOf(candidate, wanted.colour).red) : pickBand(candidate, wanted.band);
+  return band === null ? null : { field: candidate.id, band: band.name, hdu: pickHdu(band, wanted.hdu, candidate.defaultHdu).index };
+}
+
+// A version 1 link's centre, named on the sky, found on the HDU it will be shown on; null (the default view) where
+// it is not on that HDU.
+async function skyLinkView(candidate, wanted, sky) {
+  const source = landingSource(candidate, wanted);
+  if (source === null) return null;
+  try {
+    return await viewLink.land(source, sky, wanted.z);
+  } catch (error) {
+    message.show(`The link's centre (RA ${sky.ra}°, Dec ${sky.dec}°) could not be found on what it opens: ${error.detail || error.message} Showing the default view instead.`, 'link');
+    return null;
+  }
+}
+
+// A whole view from elsewhere (a meeting's presenter), applied in place: what differs is opened or redrawn, and the
+// centre and zoom are gone to at once.
+async function showView(next) {
+  const now = state.current;
+  const view = next.x !== null && next.y !== null && next.z !== null ? { x: next.x, y: next.y, z: next.z } : null;
+  if (next.grid !== now.grid) setGrid(next.grid);
+  if (next.outlines !== now.outlines) setOutlines(next.outlines);
+  state.update({ markers: next.markers });
+  let candidate = field;
+  if (next.field !== null && next.field !== field?.id) {
+    candidate = await getField(next.field);
+    fields = fields.map((known) => (known.id === candidate.id ? candidate : known));
+  }
+  if (candidate === null) return;
+  if (candidate !== field || next.band !== now.band || next.hdu !== now.hdu || !sameColour(now.colour, next.colour)) {
+    state.update({ band: next.band, hdu: next.hdu, display: next.display, colour: next.colour, layout: next.layout });
+    paintMask(next.display);
+    open(candidate, { band: next.band, hdu: next.hdu, view });
+    return;
+  }
+  if (!sameLayout(now.layout, next.layout)) applyLayout(next.layout);
+  if (!sameDisplay(now.display, next.display)) applyDisplay(next.display);
+  if (view === null) return;
+  if (panes.visible) render(view);
+  else imageView.follow(view);
+}
+
 async function start() {
   wireEvents();
   setGrid(state.current.grid);
@@ -568,7 +636,7 @@ async function start() {
   panel.limits.fitEnabled = false;
   panel.show(state.current.display, null);
   paintMask(state.current.display);
-  const dropped = droppedParameters(location.search, state.current.display);
+  const dropped = opening.version === null ? [] : droppedParameters(location.search, state.current.display);
   if (dropped.length > 0) {
     message.show(`Left out of the link's display settings (out of range, or not used with the others): ${dropped.join(', ')}.`, 'link');
   }
@@ -590,11 +658,14 @@ async function start() {
   if (wanted.field !== null && chosen === null) {
     message.show(`Field “${wanted.field}” is not available; showing “${readable[0].id}” instead.`);
   }
-  const view = chosen !== null && wanted.x !== null && wanted.y !== null && wanted.z !== null
+  if (opening.problem !== null) message.show(opening.problem, 'link');
+  let view = chosen !== null && wanted.x !== null && wanted.y !== null && wanted.z !== null
     ? { x: wanted.x, y: wanted.y, z: wanted.z }
     : null;
+  if (chosen !== null && opening.sky !== null && wanted.z !== null) view = await skyLinkView(chosen, wanted, opening.sky);
   chosen ??= readable[0];
   open(chosen, { band: wanted.band, hdu: wanted.hdu, view });
+  meeting.start();
 }
 
 start();

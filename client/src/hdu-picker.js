@@ -18,7 +18,9 @@ function stateSuffix(pyramid) {
 
 function describe(hdu) {
   const failure = hdu.pyramid?.error ? ` — ${hdu.pyramid.error}` : '';
-  if (!isWholeField(hdu.index)) return `HDU ${hdu.index}: ${hdu.width} × ${hdu.height} pixels, BITPIX ${hdu.bitpix}${failure}`;
+  // Which file holds the chip, and which HDU inside it (a band may be made of several files).
+  const place = hdu.file ? `${hdu.file}, HDU ${hdu.fitsIndex ?? hdu.index}` : `HDU ${hdu.index}`;
+  if (!isWholeField(hdu.index)) return `${place}: ${hdu.width} × ${hdu.height} pixels, BITPIX ${hdu.bitpix}${failure}`;
   const left = hdu.excluded.length > 0 ? `; ${hdu.excluded.length} left off` : '';
   return `All ${hdu.chips.length} chips on one sky grid of ${hdu.width} × ${hdu.height} pixels${left}${failure}`;
 }

@@ -11,8 +11,8 @@ const LENGTHS = [
 const MIN_PIXELS = 60;
 const MAX_PIXELS = 150;
 
-/** The round length (arcsec) whose bar is 60-150 screen pixels long at `arcsecPerPixel`; null if none is. */
-function chooseLength(arcsecPerPixel) {
+/** The round length (arcsec) whose bar is 60-150 screen (or picture) pixels long at `arcsecPerPixel`; null if none is. */
+export function chooseLength(arcsecPerPixel) {
   if (!(arcsecPerPixel > 0) || !Number.isFinite(arcsecPerPixel)) return null;
   return LENGTHS.find((length) => length / arcsecPerPixel >= MIN_PIXELS && length / arcsecPerPixel <= MAX_PIXELS) ?? null;
 }

@@ -16,10 +16,15 @@ namespace Mosaic.Canvas;
 /// chips overlap the chip whose centre is nearest on the canvas gives the value (see <see cref="CanvasBand"/>).
 /// No smoothing: a band whose pixels are finer than the canvas is point-sampled.</para>
 /// <para>Streaming: a read of rows [y, y + n) reads only the chip rows and columns that box needs, in rectangles of
-/// at most 2^20 pixels per chip; buffers are pooled per call, so reads may run on several threads at once.</para>
+/// at most 2^20 pixels per chip; chips whose canvas box misses the rows are not visited, and canvas pixels no chip
+/// reaches are only filled with NaN. Buffers are pooled per call, so reads may run on several threads at once; a
+/// read of 2^18 pixels or more (a pyramid build's strip) is itself split over two threads.</para>
 /// </summary>
 public sealed class CanvasPlane : ImagePlane
 {
+    /// <summary>Reads of at least this many pixels run on two threads (a strip of a pyramid build, not a tile).</summary>
+    internal const int ParallelPixels = 1 << 18;
+
     private readonly CanvasBand _band;
 
     internal CanvasPlane(CanvasBand band)
@@ -33,8 +38,35 @@ public sealed class CanvasPlane : ImagePlane
     protected override void ReadRowCore(int y, int x, Span<float> destination) =>
         BandResampler.Resample(_band, y, 1, x, destination.Length, destination);
 
-    protected override void ReadRowsCore(int y, int rowCount, Span<float> destination) =>
-        BandResampler.Resample(_band, y, rowCount, 0, Width, destination);
+    protected override unsafe void ReadRowsCore(int y, int rowCount, Span<float> destination)
+    {
+        if (rowCount < 2 || (long)rowCount * Width < ParallelPixels)
+        {
+            BandResampler.Resample(_band, y, rowCount, 0, Width, destination);
+            return;
+        }
+        // Resampling costs several times the reading it replaces, so a large read is split in two row halves run
+        // on two threads (calls share nothing but the band's thread-safe node cache). The span is pinned for the
+        // pool thread, which is joined before this returns.
+        var lower = rowCount / 2;
+        var band = _band;
+        var width = Width;
+        fixed (float* pixels = destination)
+        {
+            var upperStart = pixels + (long)lower * width;
+            var upperRows = rowCount - lower;
+            var upper = Task.Run(() => BandResampler.Resample(band, y + lower, upperRows, 0, width, new Span<float>(upperStart, upperRows * width)));
+            try
+            {
+                BandResampler.Resample(band, y, lower, 0, width, destination[..(lower * width)]);
+            }
+            finally
+            {
+                // Never leave while the other half still writes into the caller's span.
+                upper.GetAwaiter().GetResult();
+            }
+        }
+    }
 
     protected override double ReadValueCore(int x, int y)
     {

@@ -94,6 +94,8 @@ public sealed class ResamplingTests(ITestOutputHelper output)
         var plan = CanvasPlan.Create(field.Footprints);
         var band = new CanvasBand(plan, field.Chips);
         var whole = new float[plan.Width * plan.Height];
+        // The whole canvas in one read is split over two threads; the 7-row strips below are not.
+        Assert.True(whole.Length >= CanvasPlane.ParallelPixels && 7 * plan.Width < CanvasPlane.ParallelPixels, $"a {plan.Width} x {plan.Height} canvas does not exercise both paths");
         band.Plane.ReadRows(0, plan.Height, whole);
         Assert.Contains(whole, float.IsFinite);
 

@@ -13,12 +13,12 @@ namespace Mosaic.Fits.Writing;
 public sealed class FitsWriter : IDisposable
 {
     private const int BlockSize = 2880;
-    private const int ChunkBytes = 1 << 20;
 
     private readonly Stream _stream;
     private readonly bool _leaveOpen;
     private bool _primaryWritten;
     private bool _disposed;
+    private FitsImageData? _open;
 
     public FitsWriter(Stream stream, bool leaveOpen = false)
     {
@@ -33,6 +33,7 @@ public sealed class FitsWriter : IDisposable
     {
         ObjectDisposedException.ThrowIf(_disposed, this);
         if (_primaryWritten) throw new InvalidOperationException("The primary HDU has already been written.");
+        ThrowIfDataOpen();
         WriteHeader(cards, bitPix: 8, axes: []);
     }
 
@@ -44,32 +45,53 @@ public sealed class FitsWriter : IDisposable
         ArgumentOutOfRangeException.ThrowIfNegative(height);
         if ((long)width * height != data.Length)
             throw new ArgumentException($"data holds {data.Length} values but width x height is {(long)width * height}.", nameof(data));
-
-        WriteHeader(cards, bitPix: -32, axes: [width, height]);
-        var bytes = ArrayPool<byte>.Shared.Rent(ChunkBytes);
-        try
-        {
-            var perChunk = ChunkBytes / sizeof(float);
-            for (var start = 0; start < data.Length; start += perChunk)
-            {
-                var n = Math.Min(perChunk, data.Length - start);
-                var source = MemoryMarshal.Cast<float, uint>(data.Slice(start, n));
-                var target = MemoryMarshal.Cast<byte, uint>(bytes.AsSpan(0, n * sizeof(float)));
-                BinaryPrimitives.ReverseEndianness(source, target);
-                _stream.Write(bytes, 0, n * sizeof(float));
-            }
-        }
-        finally
-        {
-            ArrayPool<byte>.Shared.Return(bytes);
-        }
-        PadData((long)data.Length * sizeof(float));
+        var sink = BeginImage(cards, -32, [width, height]);
+        sink.WriteFloats(data);
+        sink.Complete();
     }
 
     /// <summary>Any BITPIX, with data already big-endian in the stored type (for cutouts that keep the original type).</summary>
     public void WriteRawImage(IEnumerable<HeaderCard> cards, int bitPix, IReadOnlyList<long> axes, ReadOnlySpan<byte> bigEndianData)
     {
+        var expected = DataBytes(bitPix, axes);
+        if (expected != bigEndianData.Length)
+            throw new ArgumentException($"bigEndianData holds {bigEndianData.Length} bytes but the axes and BITPIX need {expected}.", nameof(bigEndianData));
+        var data = BeginImage(cards, bitPix, axes);
+        data.WriteBigEndian(bigEndianData);
+        data.Complete();
+    }
+
+    /// <summary>
+    /// Writes the header of an image HDU (the primary if none yet, else an IMAGE extension) and returns the sink its
+    /// data go through, a strip at a time, so an image never has to be held whole. No other HDU may be written until
+    /// <see cref="FitsImageData.Complete"/> has padded this one.
+    /// </summary>
+    public FitsImageData BeginImage(IEnumerable<HeaderCard> cards, int bitPix, IReadOnlyList<long> axes)
+    {
         ObjectDisposedException.ThrowIf(_disposed, this);
+        ThrowIfDataOpen();
+        var expected = DataBytes(bitPix, axes);
+        WriteHeader(cards, bitPix, axes);
+        _open = new FitsImageData(this, _stream, bitPix, expected);
+        return _open;
+    }
+
+    /// <summary>Called by the open data sink once its bytes are all written.</summary>
+    internal void EndData(FitsImageData data, long length)
+    {
+        if (!ReferenceEquals(_open, data)) throw new InvalidOperationException("This image's data were already completed.");
+        PadData(length);
+        _open = null;
+    }
+
+    private void ThrowIfDataOpen()
+    {
+        if (_open is not null)
+            throw new InvalidOperationException("The previous image's data are not complete; call Complete() on its FitsImageData first.");
+    }
+
+    private static long DataBytes(int bitPix, IReadOnlyList<long> axes)
+    {
         ArgumentNullException.ThrowIfNull(axes);
         if (bitPix is not (8 or 16 or 32 or 64 or -32 or -64))
             throw new ArgumentOutOfRangeException(nameof(bitPix), bitPix, "BITPIX must be 8, 16, 32, 64, -32 or -64 (FITS 4.0 table 8).");
@@ -88,14 +110,10 @@ public sealed class FitsWriter : IDisposable
         {
             throw new ArgumentException("The product of the axis lengths overflows 64 bits.", nameof(axes));
         }
-        if (expected != bigEndianData.Length)
-            throw new ArgumentException($"bigEndianData holds {bigEndianData.Length} bytes but the axes and BITPIX need {expected}.", nameof(bigEndianData));
-
-        WriteHeader(cards, bitPix, axes);
-        _stream.Write(bigEndianData);
-        PadData(bigEndianData.Length);
+        return expected;
     }
 
+    /// <summary>Flushes and (unless leaveOpen) closes the stream; an image whose data are incomplete is left truncated.</summary>
     public void Dispose()
     {
         if (_disposed) return;

@@ -1,4 +1,5 @@
 using System.Numerics;
+using System.Runtime.CompilerServices;
 
 namespace Mosaic.Imaging.Pyramids;
 
@@ -9,6 +10,9 @@ internal static class BlockMean
     /// parent[i] = mean of the finite values among top[2i], top[2i+1], bottom[2i], bottom[2i+1] (column 2i+1 only
     /// where it exists); NaN where none is finite. A missing row is passed as a row of NaN.
     /// </summary>
+    // Optimised at first call: a build runs a second or two, and tier-0 code here (Vector<T> calls not inlined) would
+    // cost several times the tuned loop until tiering caught up.
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     public static void Reduce(ReadOnlySpan<float> top, ReadOnlySpan<float> bottom, Span<float> parent)
     {
         var n = top.Length;

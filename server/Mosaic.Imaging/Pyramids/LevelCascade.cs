@@ -26,12 +26,17 @@ internal sealed class LevelCascade : IDisposable
         {
             for (var z = 0; z < levels; z++)
             {
-                _writers[z] = new LevelTileWriter(Path.Combine(folder, PyramidLayout.LevelFile(z)), geometry.LevelWidth(z), geometry.LevelHeight(z));
+                // Halving the budget a level down keeps all strips within 2 x StripPixels: at most a few MiB,
+                // whatever the frame's width (a very wide frame gets strips of few rows, i.e. smaller writes).
+                var budget = LevelTileWriter.StripPixels >> Math.Min(levels - 1 - z, 30);
+                _writers[z] = new LevelTileWriter(Path.Combine(folder, PyramidLayout.LevelFile(z)), geometry.LevelWidth(z), geometry.LevelHeight(z),
+                    LevelTileWriter.StripRowsFor(geometry.LevelWidth(z), budget));
                 _pending[z] = new float[geometry.LevelWidth(z)];
                 _rows[z] = new float[geometry.LevelWidth(z)];
             }
             if (storeNative)
-                _native = new LevelTileWriter(Path.Combine(folder, PyramidLayout.LevelFile(geometry.MaxZoom)), geometry.Width, geometry.Height);
+                _native = new LevelTileWriter(Path.Combine(folder, PyramidLayout.LevelFile(geometry.MaxZoom)), geometry.Width, geometry.Height,
+                    LevelTileWriter.StripRowsFor(geometry.Width));
         }
         catch
         {
@@ -69,6 +74,17 @@ internal sealed class LevelCascade : IDisposable
                 i += 2;
             }
             AddLevelRow(top, fromTop / 2, _rows[top]);
+        }
+    }
+
+    /// <summary>Floats held by the level strips, the rows waiting for a partner and the blank row: what the cascade costs in memory.</summary>
+    public long HeldPixels
+    {
+        get
+        {
+            long held = _missingRow.LongLength + (_native?.HeldPixels ?? 0);
+            for (var z = 0; z < _writers.Length; z++) held += _writers[z].HeldPixels + _pending[z].LongLength + _rows[z].LongLength;
+            return held;
         }
     }
 

@@ -1,6 +1,9 @@
 namespace Mosaic.Server.Api;
 
-/// <summary>A field as the API lists it: width, height and hdus are those of the default band and HDU.</summary>
+/// <summary>
+/// A field as the API lists it: width, height and hdus are those of the default band and HDU; problems lists the
+/// files that cannot be shown (the rest is served).
+/// </summary>
 public sealed record FieldDto(
     string Id,
     IReadOnlyList<BandDto> Bands,
@@ -9,4 +12,5 @@ public sealed record FieldDto(
     IReadOnlyList<HduDto> Hdus,
     string? DefaultBand,
     int? DefaultHdu,
-    string? Error);
+    string? Error,
+    IReadOnlyList<FileProblemDto> Problems);

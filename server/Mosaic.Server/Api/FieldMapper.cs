@@ -17,11 +17,11 @@ public static class FieldMapper
         var defaultHdu = defaultBand?.DefaultHdu;
         var defaultHdus = defaultBand is null ? [] : bands[field.Bands.ToList().IndexOf(defaultBand)].Hdus;
         return new FieldDto(field.Id, bands, defaultHdu?.Plane.Width, defaultHdu?.Plane.Height, defaultHdus,
-            defaultBand?.Name, defaultHdu?.Index, field.Error);
+            defaultBand?.Name, defaultHdu?.Index, field.Error, field.Problems.Select(p => new FileProblemDto(p.File, p.Error)).ToList());
     }
 
     private static BandDto ToDto(FieldBand band, PyramidService pyramids) =>
-        new(band.Name, band.FileName, band.Version, band.Hdus.Select(h => ToDto(h, pyramids)).ToList(),
+        new(band.Name, band.FileName, band.Files.Select(f => f.Name).ToList(), band.Version, band.Hdus.Select(h => ToDto(h, pyramids)).ToList(),
             band.Canvas is { } canvas ? ToDto(canvas, pyramids) : null, band.Error);
 
     private static CanvasDto ToDto(FieldCanvas canvas, PyramidService pyramids)
@@ -40,6 +40,6 @@ public static class FieldMapper
     {
         return new HduDto(hdu.Index, hdu.Name, hdu.Plane.Width, hdu.Plane.Height, hdu.Plane.BitPix, hdu.Unit,
             hdu.Geometry.MaxZoom, Status(pyramids.GetStatus(hdu)),
-            SkyMapper.ToDto(hdu.Sky), hdu.Sky.Error);
+            SkyMapper.ToDto(hdu.Sky), hdu.Sky.Error, hdu.File?.Name, hdu.FitsIndex != hdu.Index ? hdu.FitsIndex : null);
     }
 }

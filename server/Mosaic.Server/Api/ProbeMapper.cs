@@ -12,7 +12,7 @@ public static class ProbeMapper
         ArgumentNullException.ThrowIfNull(hdu);
         var icrs = Icrs(hdu.Sky.Wcs, atX, atY);
         return WithSky(new ProbeDto(hdu.Band.Field.Id, hdu.Band.Name, hdu.Index, hdu.Name, x, y, double.IsNaN(value) ? null : value, hdu.Unit,
-            atX, atY, null, null, null, null, null, null), icrs);
+            atX, atY, null, null, null, null, null, null, File: hdu.File?.Name, FitsIndex: FitsIndexOf(hdu)), icrs);
     }
 
     /// <summary>A canvas point on a chip: the chip's own pixel and value; the sky position from the canvas WCS.</summary>
@@ -22,7 +22,7 @@ public static class ProbeMapper
         ArgumentNullException.ThrowIfNull(chip);
         var icrs = Icrs(canvas.Hdu.Sky.Wcs, canvasX, canvasY);
         return WithSky(new ProbeDto(chip.Band.Field.Id, chip.Band.Name, chip.Index, chip.Name, x, y, double.IsNaN(value) ? null : value, chip.Unit,
-            atX, atY, null, null, null, null, null, null, new CanvasPointDto(canvasX, canvasY)), icrs);
+            atX, atY, null, null, null, null, null, null, new CanvasPointDto(canvasX, canvasY), chip.File?.Name, FitsIndexOf(chip)), icrs);
     }
 
     /// <summary>A canvas point in a gap between chips: no chip, no value; the sky position still.</summary>
@@ -33,6 +33,8 @@ public static class ProbeMapper
         return WithSky(new ProbeDto(canvas.Band.Field.Id, canvas.Band.Name, null, null, null, null, null, null,
             null, null, null, null, null, null, null, null, new CanvasPointDto(canvasX, canvasY)), icrs);
     }
+
+    private static int? FitsIndexOf(FieldHdu chip) => chip.FitsIndex != chip.Index ? chip.FitsIndex : null;
 
     private static SkyPosition? Icrs(Mosaic.Wcs.Wcs? wcs, double x, double y) =>
         wcs is not null && wcs.TryPixelToIcrs(x, y, out var found) ? found : null;

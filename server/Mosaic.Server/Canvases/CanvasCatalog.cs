@@ -56,6 +56,7 @@ internal sealed class CanvasCatalog(ILogger logger)
             plan = CanvasPlan.Create(placeable.Select(h => new ChipFootprint(h.Description, h.Plane.Width, h.Plane.Height, h.Sky.Wcs!)).ToList());
             foreach (var band in bands)
             {
+                // A chip is known on the canvas by its index in the band (the FITS index in a band of one file).
                 var chips = band.Hdus.Where(h => h.Sky.Wcs is not null).Select(h => new CanvasChip(h.Name, h.Index, h.Plane, h.Sky.Wcs!)).ToList();
                 if (chips.Count > 0) canvases[band.Version] = new CanvasBand(plan, chips);
             }
@@ -85,7 +86,7 @@ internal sealed class CanvasCatalog(ILogger logger)
         List<HeaderCard> cards = [.. plan.Header.Cards, new HeaderCard("EXTNAME", FieldCanvas.HduName, "the whole-field canvas")];
         if (band.Hdus.Select(h => h.Unit).FirstOrDefault(u => u is not null) is { } unit) cards.Add(new HeaderCard("BUNIT", unit, null));
         var hdu = new Hdu(-1, new Header(cards), 0, 0, 0, canvas.Plane);
-        return new FieldCanvas(band, plan, canvas, new FieldHdu(band, hdu, canvas.Plane, plan.Fingerprint), excluded);
+        return new FieldCanvas(band, plan, canvas, new FieldHdu(band, hdu, canvas.Plane, -1, FieldCanvas.HduName, file: null, plan.Fingerprint), excluded);
     }
 
     private sealed record CachedField(string Key, CanvasPlan? Plan, IReadOnlyDictionary<string, CanvasBand> Bands);

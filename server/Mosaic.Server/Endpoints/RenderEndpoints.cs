@@ -22,7 +22,7 @@ public static class RenderEndpoints
     private static FileContentHttpResult Render(
         string field,
         [Description("Band name (case-insensitive); the field's first band when absent.")] string? band,
-        [Description("HDU index, EXTNAME or canvas (the whole-field canvas); may be left out where every band has one image HDU.")] string? hdu,
+        [Description("Chip: HDU index (the band's chip number where the band spans several files), EXTNAME or chip name, or canvas (the whole-field canvas); may be left out where every band has one image HDU.")] string? hdu,
         [Description("First column, FITS 1-based.")] string? x0,
         [Description("First row, FITS 1-based (the bottom row of the image).")] string? y0,
         [Description("Last column (inclusive).")] string? x1,

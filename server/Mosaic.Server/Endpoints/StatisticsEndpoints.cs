@@ -27,7 +27,7 @@ public static class StatisticsEndpoints
     private static Ok<StatsDto> Stats(
         string field,
         [Description("Band name (case-insensitive); the field's first band when absent.")] string? band,
-        [Description("HDU index, EXTNAME or canvas (the whole-field canvas) of the box; may be left out where every band has one image HDU (and does not matter without a box).")] string? hdu,
+        [Description("Chip: HDU index (the band's chip number where the band spans several files), EXTNAME or chip name, or canvas (the whole-field canvas) of the box; may be left out where every band has one image HDU (and does not matter without a box).")] string? hdu,
         [Description("Box: first column, FITS 1-based.")] string? x0,
         [Description("Box: first row, FITS 1-based.")] string? y0,
         [Description("Box: last column (inclusive).")] string? x1,

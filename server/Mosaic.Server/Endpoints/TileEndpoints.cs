@@ -21,7 +21,7 @@ public static class TileEndpoints
     private static async Task<Results<FileContentHttpResult, StatusCodeHttpResult>> GetTile(
         string field, int z, int x, int y,
         [Description("Band name (case-insensitive); the field's first band when absent.")] string? band,
-        [Description("HDU index, EXTNAME or canvas (the whole-field canvas); the band's first image HDU when absent.")] string? hdu,
+        [Description("Chip: HDU index (the band's chip number where the band spans several files), EXTNAME or chip name, or canvas (the whole-field canvas); the band's first image HDU when absent.")] string? hdu,
         [Description("The band's version (from /api/fields): a URL carrying it is cached for good. With rgb: the red, green and blue bands' versions joined by '.'.")] string? v,
         [AsParameters] DisplayParameters display,
         [AsParameters] CompositeParameters composite,

@@ -1,6 +1,9 @@
 namespace Mosaic.Server.Fields;
 
-/// <summary>What a user picks: a FITS file, or a folder whose files are the bands of one field.</summary>
+/// <summary>
+/// What a user picks: a FITS file, or a folder of FITS files; either way the image HDUs are chips, grouped into
+/// bands by FILTER (see <see cref="FieldNaming.BandName"/>).
+/// </summary>
 public sealed class Field
 {
     private readonly List<FieldBand> _bands = [];
@@ -20,6 +23,12 @@ public sealed class Field
 
     public IReadOnlyList<FieldBand> Bands => _bands;
 
+    /// <summary>Every file of the field, readable or not, in name order.</summary>
+    public IReadOnlyList<FieldFile> Files { get; private set; } = [];
+
+    /// <summary>The files that cannot be shown, with why; the rest of the field is served.</summary>
+    public IReadOnlyList<FieldProblem> Problems => Files.Where(f => f.Error is not null).Select(f => new FieldProblem(f.Name, f.Error!)).ToList();
+
     /// <summary>Why nothing of this field can be shown, or null where at least one band can.</summary>
     public string? Error => _bands.Count == 0
         ? (IsFolder ? "the folder holds no FITS file" : "the file could not be read")
@@ -29,6 +38,8 @@ public sealed class Field
     public FieldBand? DefaultBand => _bands.FirstOrDefault(b => b.Error is null);
 
     internal void Add(FieldBand band) => _bands.Add(band);
+
+    internal void SetFiles(IReadOnlyList<FieldFile> files) => Files = files;
 
     /// <summary>By name (case-insensitive); the default band when null or empty.</summary>
     public FieldBand ResolveBand(string? band)

@@ -1,6 +1,3 @@
-using System.Security.Cryptography;
-using System.Text;
-using Mosaic.Fits;
 using Mosaic.Server.Hosting;
 
 namespace Mosaic.Server.Fields;
@@ -57,8 +54,8 @@ public sealed class FieldCatalog(MosaicOptions options, ILogger<FieldCatalog> lo
 
     private List<Field> Scan(IReadOnlyList<Field> previous)
     {
-        var known = previous.SelectMany(f => f.Bands).Where(b => b.File is not null)
-            .ToDictionary(b => b.FilePath, StringComparer.Ordinal);
+        var known = previous.SelectMany(f => f.Files).Where(f => f.Fits is not null)
+            .GroupBy(f => f.Path, StringComparer.Ordinal).ToDictionary(g => g.Key, g => g.First(), StringComparer.Ordinal);
         var fields = new List<Field>();
         var root = new DirectoryInfo(options.DataDirectory);
         if (!root.Exists)
@@ -73,75 +70,21 @@ public sealed class FieldCatalog(MosaicOptions options, ILogger<FieldCatalog> lo
             if (entry is DirectoryInfo folder)
             {
                 var field = new Field(folder.Name, folder.FullName, isFolder: true);
-                foreach (var file in folder.EnumerateFiles().Where(f => FieldNaming.IsFitsFile(f.Name) && IsInside(f, root)).OrderBy(f => f.Name, StringComparer.Ordinal))
-                    field.Add(OpenBand(field, file, folder.Name, known));
-                MakeBandNamesUnique(field);
+                var files = folder.EnumerateFiles().Where(f => FieldNaming.IsFitsFile(f.Name) && IsInside(f, root)).OrderBy(f => f.Name, StringComparer.Ordinal)
+                    .Select(f => FieldFile.Open(f, known.GetValueOrDefault(f.FullName), logger)).ToList();
+                BandGrouping.Group(field, files, folder.Name);
                 fields.Add(field);
             }
             else if (entry is FileInfo file && FieldNaming.IsFitsFile(file.Name))
             {
                 var field = new Field(FieldNaming.Stem(file.Name), file.FullName, isFolder: false);
-                field.Add(OpenBand(field, file, folderName: "", known));
+                BandGrouping.Group(field, [FieldFile.Open(file, known.GetValueOrDefault(file.FullName), logger)], folderName: null);
                 fields.Add(field);
             }
         }
 
         // A file and a folder may reduce to the same id; the first (folders and files in name order) wins.
         return fields.GroupBy(f => f.Id, StringComparer.Ordinal).Select(g => g.First()).ToList();
-    }
-
-    private FieldBand OpenBand(Field field, FileInfo file, string folderName, Dictionary<string, FieldBand> known)
-    {
-        var fingerprint = FileFingerprint.Of(file);
-        FitsFile? fits = null;
-        string? error = null;
-        if (known.TryGetValue(file.FullName, out var before) && before.Fingerprint == fingerprint && before.File is not null)
-        {
-            fits = before.File;
-        }
-        else
-        {
-            try
-            {
-                fits = FitsFile.Open(file.FullName);
-            }
-            catch (FitsFormatException e)
-            {
-                error = e.Message;
-            }
-            catch (IOException e)
-            {
-                error = $"{file.Name}: {e.Message}";
-            }
-            catch (UnauthorizedAccessException)
-            {
-                error = $"{file.Name}: permission denied";
-            }
-            if (error is not null) logger.LogWarning("Cannot read {File}: {Error}", file.FullName, error);
-        }
-
-        var filter = fits is null ? null : FindFilter(fits);
-        var band = new FieldBand(field, FieldNaming.BandName(filter, file.Name, folderName), file.FullName, fingerprint);
-        if (fits is not null) band.Attach(fits, Version(file, fingerprint, fits));
-        else band.Fail(error!);
-        return band;
-    }
-
-    private static string? FindFilter(FitsFile fits)
-    {
-        foreach (var hdu in fits.Hdus)
-        {
-            if (hdu.Header.GetString("FILTER") is { } filter && !string.IsNullOrWhiteSpace(filter)) return filter;
-            if (hdu.Image is not null && hdu.Index > 0) break;
-        }
-        return null;
-    }
-
-    private static void MakeBandNamesUnique(Field field)
-    {
-        foreach (var group in field.Bands.GroupBy(b => b.Name, StringComparer.OrdinalIgnoreCase).Where(g => g.Count() > 1))
-            foreach (var band in group)
-                band.Name = FieldNaming.Stem(band.FileName);
     }
 
     private static bool IsInside(FileSystemInfo entry, DirectoryInfo root)
@@ -152,15 +95,5 @@ public sealed class FieldCatalog(MosaicOptions options, ILogger<FieldCatalog> lo
         if (target is null || !target.Exists) return false;
         var rootPath = Path.TrimEndingDirectorySeparator(root.FullName) + Path.DirectorySeparatorChar;
         return target.FullName.StartsWith(rootPath, StringComparison.Ordinal);
-    }
-
-    private static string Version(FileInfo file, FileFingerprint fingerprint, FitsFile fits)
-    {
-        var text = new StringBuilder();
-        text.Append(file.FullName).Append('|').Append(fingerprint.Length).Append('|').Append(fingerprint.LastWriteUtc.Ticks);
-        foreach (var hdu in fits.Hdus)
-            foreach (var card in hdu.Header.Cards)
-                text.Append('|').Append(card.Keyword).Append('=').Append(card.Value);
-        return Convert.ToHexStringLower(SHA256.HashData(Encoding.UTF8.GetBytes(text.ToString())))[..16];
     }
 }

@@ -87,8 +87,9 @@ public static class IngestCommand
         }
 
         output.WriteLine($"Ingesting {Plural(fields.Count, "field")} of {options.DataDirectory} into {options.CacheDirectory}");
-        foreach (var band in fields.SelectMany(f => f.Bands).Where(b => b.Error is not null))
-            error.WriteLine($"ingest: skipped {band.FilePath}: {band.Error}");
+        foreach (var field in fields)
+            foreach (var problem in field.Problems)
+                error.WriteLine($"ingest: skipped {Path.Combine(field.IsFolder ? field.Path : Path.GetDirectoryName(field.Path)!, problem.File)}: {problem.Error}");
         foreach (var band in fields.SelectMany(f => f.Bands).Where(b => b.Canvas is not null))
             foreach (var chip in band.Canvas!.Excluded)
                 output.WriteLine($"  note: {band.Field.Id}/{band.Name}/{chip.Name} (HDU {chip.Hdu}) is left off the canvas: {chip.Reason}");

@@ -1,6 +1,6 @@
 namespace Mosaic.Server.Hosting;
 
-/// <summary>Where the data and the cache live, read from the command line (--data, --cache, --demo-preset).</summary>
+/// <summary>Where the data, the cache and the saved state live, read from the command line (--data, --cache, --state, --demo-preset, --cutout-limit).</summary>
 public sealed class MosaicOptions
 {
     /// <summary>Each FITS file directly in it is a field; each sub-folder is a field whose files are its bands.</summary>
@@ -14,17 +14,36 @@ public sealed class MosaicOptions
 
     public string DemoPreset { get; init; } = "default";
 
+    /// <summary>Saved views (views.db) and other state that must outlive a restart; created on start.</summary>
+    public string StateDirectory { get; init; } = Path.Combine(XdgFolder("XDG_DATA_HOME", Path.Combine(".local", "share")), "mosaic", "state");
+
+    /// <summary>The largest FITS cutout served, in pixels (64 Mpx unless --cutout-limit says otherwise).</summary>
+    public long CutoutPixelLimit { get; init; } = DefaultCutoutPixelLimit;
+
+    public const long DefaultCutoutPixelLimit = 64L << 20;
+
     public static MosaicOptions FromConfiguration(IConfiguration configuration)
     {
         var data = configuration["data"];
         var cache = configuration["cache"] ?? Path.Combine(XdgFolder("XDG_CACHE_HOME", ".cache"), "mosaic");
+        var state = configuration["state"] ?? Path.Combine(XdgFolder("XDG_DATA_HOME", Path.Combine(".local", "share")), "mosaic", "state");
         return new MosaicOptions
         {
             DataDirectory = Path.GetFullPath(data ?? Path.Combine(XdgFolder("XDG_DATA_HOME", Path.Combine(".local", "share")), "mosaic", "demo-data")),
             CacheDirectory = Path.GetFullPath(cache),
             ServesDemo = data is null,
             DemoPreset = configuration["demo-preset"] ?? "default",
+            StateDirectory = Path.GetFullPath(state),
+            CutoutPixelLimit = CutoutLimit(configuration["cutout-limit"]),
         };
+    }
+
+    private static long CutoutLimit(string? text)
+    {
+        if (string.IsNullOrWhiteSpace(text)) return DefaultCutoutPixelLimit;
+        if (!long.TryParse(text.Trim(), System.Globalization.NumberStyles.None, System.Globalization.CultureInfo.InvariantCulture, out var limit) || limit < 1)
+            throw new ArgumentException($"--cutout-limit must be a whole number of pixels, at least 1; got '{text}'.");
+        return limit;
     }
 
     private static string XdgFolder(string variable, string fallbackUnderHome)

@@ -1,10 +1,12 @@
 using Mosaic.Server.Endpoints;
 using Mosaic.Server.Errors;
 using Mosaic.Server.Fields;
+using Mosaic.Server.Meetings;
 using Mosaic.Server.Pyramids;
 using Mosaic.Server.Regions;
 using Mosaic.Server.Rendering;
 using Mosaic.Server.Tiles;
+using Mosaic.Server.Views;
 using Mosaic.TileCache;
 
 namespace Mosaic.Server.Hosting;
@@ -27,6 +29,8 @@ public static class MosaicServices
         services.AddSingleton<TileService>();
         services.AddSingleton<RegionImageService>();
         services.AddSingleton<RegionStatisticsService>();
+        services.AddSingleton<ViewStore>();
+        services.AddMeetings();
         return services;
     }
 
@@ -44,6 +48,10 @@ public static class MosaicServices
         app.MapStatisticsEndpoints();
         app.MapDisplayEndpoints();
         app.MapRenderEndpoints();
+        app.MapViewEndpoints();
+        app.MapCutoutEndpoints();
+        app.MapMeetingEndpoints();
+        app.MapMeetingHub();
 
         // Scan at start so the pyramids begin building before anyone asks.
         app.Lifetime.ApplicationStarted.Register(() => app.Services.GetRequiredService<FieldCatalog>().RefreshIfStale());

@@ -26,6 +26,11 @@ public sealed class MosaicSite : IAsyncLifetime
 
     public string DataDirectory => Path.Combine(_root, "data");
 
+    /// <summary>The server's --state folder: saved views live here, across restarts.</summary>
+    public string StateDirectory => Path.Combine(_root, "state");
+
+    private string CacheDirectory => Path.Combine(_root, "cache");
+
     public Uri BaseAddress => Server.BaseAddress;
 
     public ServerProcess Server => _server ?? throw new InvalidOperationException("the site is not started");
@@ -43,6 +48,34 @@ public sealed class MosaicSite : IAsyncLifetime
             .FirstOrDefault(found => found.Pixel is not null);
         if (hdu is null || masked is null) throw new InvalidOperationException($"astropy finds no NaN pixel in any HDU of band {band}");
         return (hdu, masked.Value.X, masked.Value.Y);
+    }
+
+    /// <summary>A new empty folder for a separate server's --state.</summary>
+    public string NewStateDirectory()
+    {
+        var folder = Path.Combine(_root, $"state-{Guid.NewGuid():N}");
+        Directory.CreateDirectory(folder);
+        return folder;
+    }
+
+    /// <summary>
+    /// Another server on the same data and cache folders but its own --state folder, on <paramref name="address"/>
+    /// (a free port when null), returned once the demo field's pyramids are ready there. Restart tests stop and
+    /// start these, so the shared server stays up and warm for every other test.
+    /// </summary>
+    public async Task<ServerProcess> StartSeparateServerAsync(string stateDirectory, Uri? address = null)
+    {
+        var server = await ServerProcess.StartAsync(DataDirectory, CacheDirectory, stateDirectory, address);
+        try
+        {
+            await WaitForPyramidsAsync(TimeSpan.FromMinutes(2), DemoFieldId, server.BaseAddress);
+            return server;
+        }
+        catch
+        {
+            await server.DisposeAsync();
+            throw;
+        }
     }
 
     public HttpClient CreateHttpClient() => new() { BaseAddress = BaseAddress, Timeout = TimeSpan.FromSeconds(30) };
@@ -93,7 +126,7 @@ public sealed class MosaicSite : IAsyncLifetime
             """,
             [Path.Combine(DataDirectory, PartlySolvedFieldId + ".fits")]);
 
-        _server = await ServerProcess.StartAsync(DataDirectory, Path.Combine(_root, "cache"));
+        _server = await ServerProcess.StartAsync(DataDirectory, CacheDirectory, StateDirectory);
         _demo = await WaitForPyramidsAsync(TimeSpan.FromMinutes(3));
 
         _playwright = await Playwright.CreateAsync();
@@ -107,21 +140,26 @@ public sealed class MosaicSite : IAsyncLifetime
     }
 
     /// <summary>A fresh browser context (no shared history or cache) at 1280 x 800.</summary>
-    public async Task<ViewerPage> OpenViewerAsync(string query = "")
+    public Task<ViewerPage> OpenViewerAsync(string query = "") => OpenViewerAsync(query, BaseAddress);
+
+    /// <summary>A fresh browser context at 1280 x 800 on another server (see <see cref="StartSeparateServerAsync"/>).</summary>
+    public async Task<ViewerPage> OpenViewerAsync(string query, Uri baseAddress)
     {
         var browser = _browser ?? throw new InvalidOperationException("the site is not started");
         var context = await browser.NewContextAsync(new BrowserNewContextOptions
         {
-            BaseURL = BaseAddress.ToString(),
+            BaseURL = baseAddress.ToString(),
             ViewportSize = new ViewportSize { Width = 1280, Height = 800 },
         });
         var page = await ViewerPage.OpenAsync(context, query);
         return page;
     }
 
-    public async Task<JsonElement> GetJsonAsync(string path)
+    public Task<JsonElement> GetJsonAsync(string path) => GetJsonAsync(path, BaseAddress);
+
+    public async Task<JsonElement> GetJsonAsync(string path, Uri baseAddress)
     {
-        using var http = CreateHttpClient();
+        using var http = new HttpClient { BaseAddress = baseAddress, Timeout = TimeSpan.FromSeconds(30) };
         using var response = await http.GetAsync(path);
         var body = await response.Content.ReadAsStringAsync();
         if (!response.IsSuccessStatusCode)
@@ -147,12 +185,12 @@ public sealed class MosaicSite : IAsyncLifetime
     /// <summary>The field once every pyramid of it (chips and whole fields) is ready.</summary>
     public Task<FieldInfo> WaitForFieldAsync(string fieldId) => WaitForPyramidsAsync(TimeSpan.FromMinutes(2), fieldId);
 
-    private async Task<FieldInfo> WaitForPyramidsAsync(TimeSpan limit, string fieldId = DemoFieldId)
+    private async Task<FieldInfo> WaitForPyramidsAsync(TimeSpan limit, string fieldId = DemoFieldId, Uri? baseAddress = null)
     {
         var deadline = DateTime.UtcNow + limit;
         while (true)
         {
-            var field = FieldInfo.Parse(await GetJsonAsync($"api/fields/{fieldId}"));
+            var field = FieldInfo.Parse(await GetJsonAsync($"api/fields/{fieldId}", baseAddress ?? BaseAddress));
             // The whole field's pyramid is built after its chips'.
             var states = field.Bands.SelectMany(b => b.Hdus.Select(h => (Band: b.Name, Hdu: h.Name, State: h.PyramidState))
                 .Concat(b.Canvas is { } canvas ? [(Band: b.Name, Hdu: "canvas", State: canvas.PyramidState)] : [])).ToList();

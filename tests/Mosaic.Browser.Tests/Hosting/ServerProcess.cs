@@ -10,6 +10,7 @@ public sealed class ServerProcess : IAsyncDisposable
 {
     private readonly Process _process;
     private readonly StringBuilder _log = new();
+    private bool _disposed;
 
     private ServerProcess(Process process, Uri baseAddress)
     {
@@ -45,10 +46,15 @@ public sealed class ServerProcess : IAsyncDisposable
             throw new InvalidOperationException($"generate-demo failed ({process.ExitCode}):\n{await stdout}\n{await stderr}");
     }
 
-    public static async Task<ServerProcess> StartAsync(string dataDirectory, string cacheDirectory)
+    /// <summary>
+    /// Starts the server on <paramref name="baseAddress"/> (a free loopback port when null), keeping saved views in
+    /// <paramref name="stateDirectory"/> (never the user's own folder in tests).
+    /// </summary>
+    public static async Task<ServerProcess> StartAsync(string dataDirectory, string cacheDirectory, string stateDirectory, Uri? baseAddress = null)
     {
-        var baseAddress = new Uri($"http://127.0.0.1:{FreePort()}/");
-        var start = StartInfo("--data", dataDirectory, "--cache", cacheDirectory, "--urls", baseAddress.ToString().TrimEnd('/'));
+        baseAddress ??= new Uri($"http://127.0.0.1:{FreePort()}/");
+        var start = StartInfo("--data", dataDirectory, "--cache", cacheDirectory, "--state", stateDirectory,
+            "--urls", baseAddress.ToString().TrimEnd('/'));
         var process = Process.Start(start) ?? throw new InvalidOperationException("could not start dotnet");
         var server = new ServerProcess(process, baseAddress);
         try
@@ -65,6 +71,9 @@ public sealed class ServerProcess : IAsyncDisposable
 
     public async ValueTask DisposeAsync()
     {
+        // A test may stop a server before the end of its scope (a restart); the scope's dispose then does nothing.
+        if (_disposed) return;
+        _disposed = true;
         if (!_process.HasExited)
         {
             _process.Kill(entireProcessTree: true);

@@ -15,6 +15,9 @@ public sealed class ViewerPage : IAsyncDisposable
     private const string TileSelector = "#image-view .image-tiles img.leaflet-tile";
     private readonly ConcurrentQueue<string> _failedTiles = new();
     private readonly ConcurrentQueue<string> _pageErrors = new();
+    private readonly Lock _centreLock = new();
+    // The centre of the newest URL that named it by pixel, with the field, band and HDU it was on.
+    private (string? Field, string? Band, int? Hdu, bool WholeField, double X, double Y)? _pixelCentre;
 
     private ViewerPage(IBrowserContext context, IPage page)
     {
@@ -29,9 +32,14 @@ public sealed class ViewerPage : IAsyncDisposable
             if (IsTile(request.Url)) _failedTiles.Enqueue($"failed ({request.Failure}) {request.Url}");
         };
         page.PageError += (_, error) => _pageErrors.Enqueue(error);
+        page.FrameNavigated += (_, frame) =>
+        {
+            if (frame == page.MainFrame) RememberPixelCentre(frame.Url);
+        };
         page.Console += (_, message) =>
         {
-            if (message.Type == "error") _pageErrors.Enqueue(message.Text);
+            // The location names the resource where loading one failed; the text alone does not.
+            if (message.Type == "error") _pageErrors.Enqueue($"{message.Text} ({message.Location})");
         };
     }
 
@@ -54,7 +62,48 @@ public sealed class ViewerPage : IAsyncDisposable
         return viewer;
     }
 
-    public ViewQuery Url => ViewQuery.FromUrl(Page.Url);
+    /// <summary>
+    /// The view the page's URL shows, its centre in FITS pixels. A version 1 URL names the centre by RA/Dec once the
+    /// server has converted it; the page writes the exact pixel centre first, so the centre of such a URL is that of
+    /// the newest URL that named it by pixel on the same field, band and HDU.
+    /// </summary>
+    public ViewQuery Url => WithPixelCentre(Page.Url);
+
+    /// <summary>Whether the page's URL names its centre by RA/Dec (link version 1 on an HDU with a celestial WCS).</summary>
+    public bool UrlCentreOnSky => IsSkyForm(Page.Url);
+
+    /// <summary>Waits until the URL names its centre by RA/Dec, and returns the URL.</summary>
+    public async Task<string> WaitForSkyUrlAsync()
+    {
+        await Page.WaitForFunctionAsync("() => { const q = new URLSearchParams(location.search); return q.has('ra') && q.has('dec'); }",
+            null, new PageWaitForFunctionOptions { Timeout = 10_000, PollingInterval = 20 });
+        return Page.Url;
+    }
+
+    private static bool IsSkyForm(string url)
+    {
+        var query = QueryString.Parse(url);
+        return query.ContainsKey("ra") && query.ContainsKey("dec") && !query.ContainsKey("x");
+    }
+
+    private void RememberPixelCentre(string url)
+    {
+        var view = ViewQuery.FromUrl(url);
+        if (view is not { X: { } x, Y: { } y }) return;
+        lock (_centreLock) _pixelCentre = (view.Field, view.Band, view.Hdu, view.WholeField, x, y);
+    }
+
+    private ViewQuery WithPixelCentre(string url)
+    {
+        var view = ViewQuery.FromUrl(url);
+        if (!IsSkyForm(url)) return view;
+        lock (_centreLock)
+        {
+            return _pixelCentre is { } known && (known.Field, known.Band, known.Hdu, known.WholeField) == (view.Field, view.Band, view.Hdu, view.WholeField)
+                ? view with { X = known.X, Y = known.Y }
+                : view;
+        }
+    }
 
     /// <summary>Waits until the map is still and every tile of the image layer has finished loading (or failing) and fading in.</summary>
     public async Task<IReadOnlyList<TileImage>> WaitForTilesAsync(string? srcContains = null)
@@ -86,7 +135,7 @@ public sealed class ViewerPage : IAsyncDisposable
         while (true)
         {
             var href = await Page.EvaluateAsync<string>("() => document.querySelector('.leaflet-zoom-anim, .leaflet-pan-anim') ? '' : location.href");
-            if (href.Length > 0 && ViewQuery.FromUrl(href) is var now && now != before) return now;
+            if (href.Length > 0 && WithPixelCentre(href) is var now && now != before) return now;
             if (DateTime.UtcNow > deadline) throw new TimeoutException($"the URL still shows {before} after 15 s");
             await Task.Delay(50);
         }
