@@ -140,3 +140,15 @@ export function getBoxStats({ field, band, hdu }, { x0, y0, x1, y1 }, signal) {
 export function listPalettes(signal) {
   return getJson('api/palettes', signal);
 }
+
+/**
+ * The FITS cutout of pixel box {x0, y0, x1, y1} (FITS 1-based, inclusive) of a chip or of the whole-field canvas, as
+ * a Blob: original values and data type, with its WCS (the canvas: resampled values).
+ */
+export async function getCutout({ field, band, hdu }, { x0, y0, x1, y1 }, signal) {
+  const query = new URLSearchParams({ band, hdu: String(hdu) });
+  for (const [name, value] of Object.entries({ x0, y0, x1, y1 })) query.set(name, String(value));
+  const response = await fetch(fieldPath(field, 'cutout.fits', query), { signal });
+  if (!response.ok) throw await ApiError.fromResponse(response);
+  return response.blob();
+}

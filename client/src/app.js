@@ -563,7 +563,7 @@ function wireEvents() {
   gridToggle.addEventListener('toggle', (event) => setGrid(event.detail));
   outlineToggle.addEventListener('toggle', (event) => setOutlines(event.detail));
   exportPanel.addEventListener('saved', () => message.clear('picture'));
-  exportPanel.addEventListener('failed', (event) => message.show(`Picture: ${event.detail.detail || event.detail.message}`, 'picture'));
+  exportPanel.addEventListener('failed', (event) => message.show(`Export: ${event.detail.detail || event.detail.message}`, 'picture'));
   skySync.addEventListener('sky', (event) => onSky(event.detail));
   skySync.addEventListener('clear', (event) => onSkyCleared(event.detail));
   imageView.addEventListener('pointer', (event) => readout.pointAt(event.detail));

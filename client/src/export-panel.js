@@ -1,6 +1,7 @@
-// The picture panel: screen or native resolution, which overlays to draw in, and the button that saves the PNG.
+// The picture panel: screen or native resolution, which overlays to draw in, and the button that saves the PNG; and
+// the FITS cutout of the same visible box.
 import { ExportError, nativePicture, screenPicture } from './export-png.js';
-import { getSky } from './api.js';
+import { getCutout, getSky } from './api.js';
 import { isWholeField } from './whole-field.js';
 import { downloadBlob } from './download.js';
 
@@ -16,6 +17,7 @@ export class ExportPanel extends EventTarget {
   #markerLayer;
   #state;
   #saveButton;
+  #cutoutButton;
   #busy = false;
 
   /**
@@ -32,7 +34,9 @@ export class ExportPanel extends EventTarget {
     this.#state = state;
     this.#saveButton = root.querySelector('[data-role=save]');
     toggle.addEventListener('click', () => this.open = root.hidden);
+    this.#cutoutButton = root.querySelector('[data-role=cutout]');
     this.#saveButton.addEventListener('click', () => this.save());
+    this.#cutoutButton.addEventListener('click', () => this.saveCutout());
     root.addEventListener('keydown', (event) => {
       if (event.key === 'Escape') this.open = false;
     });
@@ -71,6 +75,28 @@ export class ExportPanel extends EventTarget {
     }
   }
 
+  /** Downloads the FITS cutout of the visible box: the chip's own values, or the whole field's resampled canvas. */
+  async saveCutout() {
+    if (this.#busy) return;
+    this.#setBusy(true);
+    try {
+      const source = this.#markerLayer.source;
+      const box = this.#imageView.visibleBox;
+      if (source === null || box === null) throw new ExportError('No part of the image is on screen.');
+      if (this.#state.current.layout.view !== null) throw new ExportError('A cutout is of one image: switch the layout to “One image” first.');
+      const blob = await getCutout(source, box);
+      const where = isWholeField(source.hdu) ? 'field' : `hdu${source.hdu}`;
+      // The box in the name: which pixels these are stays with the file.
+      const name = `${source.field}-${source.band}-${where}-x${box.x0}-${box.x1}-y${box.y0}-${box.y1}.fits`.replace(/[^A-Za-z0-9._-]/g, '_');
+      downloadBlob(name, blob);
+      this.dispatchEvent(new CustomEvent('saved', { detail: { name, box } }));
+    } catch (error) {
+      this.dispatchEvent(new CustomEvent('failed', { detail: error }));
+    } finally {
+      this.#setBusy(false);
+    }
+  }
+
   // What is shown, and north, east and the scale at the middle of the view, asked afresh.
   async #context() {
     const source = this.#markerLayer.source;
@@ -92,6 +118,7 @@ export class ExportPanel extends EventTarget {
   #setBusy(busy) {
     this.#busy = busy;
     this.#saveButton.disabled = busy;
+    this.#cutoutButton.disabled = busy;
     this.#root.setAttribute('aria-busy', String(busy));
   }
 }

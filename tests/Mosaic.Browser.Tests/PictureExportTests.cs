@@ -1,4 +1,5 @@
 using System.Globalization;
+using System.Text.RegularExpressions;
 using Microsoft.Playwright;
 using Mosaic.Browser.Tests.Hosting;
 using Mosaic.Browser.Tests.Reference;
@@ -173,6 +174,44 @@ public sealed class PictureExportTests(MosaicSite site)
     }
 
     /// <summary>Saves a picture through the panel and decodes the download (ImageSharp).</summary>
+    [Fact]
+    public async Task A_FITS_cutout_of_the_view_opens_in_astropy_with_the_original_values_and_WCS()
+    {
+        var band = site.Demo.DefaultBand;
+        var hdu = site.Demo.Band(band).Hdu(site.Demo.DefaultHdu);
+        var file = site.BandFile(band);
+        var (cx, cy) = (hdu.Width / 2.0 + 10.3, hdu.Height / 2.0 - 7.6);
+        await using var viewer = await site.OpenViewerAsync(new ViewQuery(site.Demo.Id, band, hdu.Index, cx, cy, hdu.MaxZoom + 3.0).ToQuery());
+        await viewer.WaitForTilesAsync();
+        var page = viewer.Page;
+        if (await page.IsHiddenAsync("#export-panel")) await page.ClickAsync("#export-toggle");
+        var download = await page.RunAndWaitForDownloadAsync(() => page.ClickAsync("#export-panel [data-role=cutout]"));
+        var name = Regex.Match(download.SuggestedFilename, @"-x(\d+)-(\d+)-y(\d+)-(\d+)\.fits$");
+        Assert.True(name.Success, $"the cutout's name '{download.SuggestedFilename}' does not give its box");
+        int Part(int group) => int.Parse(name.Groups[group].Value, CultureInfo.InvariantCulture);
+        var (x0, x1, y0, y1) = (Part(1), Part(2), Part(3), Part(4));
+        // The visible box: it holds the view's centre and, at 8 screen pixels per image pixel, is narrower than the chip.
+        Assert.InRange(cx, x0, x1);
+        Assert.InRange(cy, y0, y1);
+        Assert.True(x1 - x0 + 1 < hdu.Width && x1 - x0 > 50, $"box x {x0}-{x1}");
+        var path = await download.PathAsync();
+
+        // astropy.io.fits reads the cutout's pixel (i, j) as the original's (x0 - 1 + i, y0 - 1 + j) (FITS 4.0 section
+        // 3.3.2: the first pixel of the data is (1, 1)).
+        var (w, h) = (x1 - x0 + 1, y1 - y0 + 1);
+        foreach (var (i, j) in new[] { (1, 1), (w, h), (w / 2 + 1, h / 3 + 1) })
+            Assert.Equal(AstropyFits.Pixel(file, hdu.Index, x0 - 1 + i, y0 - 1 + j).Value, AstropyFits.Pixel(path, 0, i, j).Value);
+        // astropy.wcs of the cutout (CRPIX shifted, distortion kept) and of the original agree on the same pixels.
+        var cut = AstropyWcs.PixelToSky(path, 0, [(1.0, 1.0), (w, h), (w / 2.0, 1.0)]);
+        var original = AstropyWcs.PixelToSky(file, hdu.Index, [(x0, y0), (x1, y1), (x0 - 1 + w / 2.0, y0)]);
+        for (var k = 0; k < cut.Count; k++)
+        {
+            Assert.Equal(original[k].Ra, cut[k].Ra, 1e-9);
+            Assert.Equal(original[k].Dec, cut[k].Dec, 1e-9);
+        }
+        Assert.Empty(viewer.PageErrors);
+    }
+
     private static async Task<Image<Rgba32>> SaveAsync(ViewerPage viewer, string resolution, bool overlays)
     {
         var page = viewer.Page;
