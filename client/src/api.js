@@ -62,6 +62,15 @@ export function probePixel({ field, band, hdu }, x, y, signal) {
 }
 
 /**
+ * Where ICRS position (ra, dec) in degrees falls on one HDU: the answer's `atX`/`atY`, or on the whole field
+ * (`hdu: 'canvas'`) its `canvas` {x, y}. 404 when the position is off that HDU.
+ */
+export function probeSky({ field, band, hdu }, ra, dec, signal) {
+  const query = new URLSearchParams({ band, hdu: String(hdu), ra: String(ra), dec: String(dec) });
+  return getJson(`api/fields/${encodeURIComponent(field)}/probe?${query}`, signal);
+}
+
+/**
  * The pixel at a sky position typed by a person (sexagesimal or decimal degrees, ICRS), on whichever HDU of the band
  * holds it: the answer's `hdu` says which, `atX`/`atY` where on it. With `hdu: 'canvas'` it is looked up on the
  * band's whole field, and the answer's `canvas` ({x, y}) says where the position is on that.

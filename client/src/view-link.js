@@ -9,7 +9,7 @@
 // version 0, made before, and carries `x`/`y`. Pixels are exact; RA/Dec keep naming the same spot of sky when a
 // field's whole-field grid is laid out anew (new chips, another centre).
 import { LINK_VERSION, formatSky, formatViewQuery, parseViewQuery, roundCentre } from './state.js';
-import { skyOfPixel, pixelOfSky } from './link-api.js';
+import { probePixel, probeSky } from './api.js';
 import { isWholeField } from './whole-field.js';
 
 const KNOWN_VERSIONS = Object.freeze(['0', String(LINK_VERSION)]);
@@ -107,7 +107,7 @@ export class ViewLink {
   #size = null;
   #request = null;
 
-  constructor(state, { toSky = skyOfPixel, toPixel = pixelOfSky } = {}) {
+  constructor(state, { toSky = probePixel, toPixel = probeSky } = {}) {
     this.#state = state;
     this.#toSky = toSky;
     this.#toPixel = toPixel;
