@@ -5,7 +5,8 @@ set -euo pipefail
 cd "$(dirname "$0")/.."
 
 need=()
-for pkg in chromium python3-astropy python3-numpy python3-pil libcfitsio-bin wcslib-tools; do
+# redis-server: the scale-out tests start their own instances on free loopback ports, so no service is started here.
+for pkg in chromium python3-astropy python3-numpy python3-pil libcfitsio-bin wcslib-tools redis-server; do
   dpkg -s "$pkg" >/dev/null 2>&1 || need+=("$pkg")
 done
 if [ ${#need[@]} -gt 0 ]; then

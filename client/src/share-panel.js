@@ -1,7 +1,9 @@
-// The share panel, opened from the toolbar: the link to the view on screen and the field's saved views. While
-// open it follows the view, so the link shown is always the one for what is on screen.
+// The share panel, opened from the toolbar: the link to the view on screen, a read-only signed link (for a caller
+// with the access token) and the field's saved views. While open it follows the view, so the link shown is always
+// the one for what is on screen.
 import { LinkBox } from './link-box.js';
 import { SavedViews } from './saved-views.js';
+import { SignedLink } from './signed-link.js';
 
 export class SharePanel {
   #panel;
@@ -10,6 +12,7 @@ export class SharePanel {
   #viewLink;
   #link;
   #saved;
+  #signed;
   #sequence = 0;
 
   /** `viewLink` is the page's ViewLink; `stateOf()` gives the view state object a save sends. */
@@ -19,6 +22,8 @@ export class SharePanel {
     this.#state = state;
     this.#viewLink = viewLink;
     this.#link = new LinkBox(panel);
+    const linkInput = panel.querySelector('[data-role=link]');
+    this.#signed = new SignedLink(panel, panel.querySelector('[data-role=link-status]'), () => linkInput.value);
     this.#saved = new SavedViews(panel, stateOf);
     toggle.addEventListener('click', () => this.#setOpen(panel.hidden));
     panel.addEventListener('keydown', (event) => {
@@ -34,6 +39,7 @@ export class SharePanel {
   /** The field on screen, whose saved views the panel lists. */
   setField(field) {
     this.#saved.setField(field);
+    this.#signed.setField(field);
     if (!this.#panel.hidden) this.#saved.refresh();
   }
 
@@ -41,6 +47,7 @@ export class SharePanel {
     this.#panel.hidden = !open;
     this.#toggle.setAttribute('aria-expanded', String(open));
     if (!open) return;
+    this.#signed.load();
     this.#showLink();
     this.#saved.refresh();
   }

@@ -46,7 +46,7 @@ public sealed partial class MeetingTests(MosaicSite site)
         var box = await presenterPage.MapBoxAsync();
         async Task<(string Key, double At, Dictionary<string, string> State)> TimeAsync(string what, double since)
         {
-            var sent = await presenter.LastSentAsync(since);
+            var sent = await presenter.SettledSentAsync(since);
             var shown = await follower.AppliedAsync(sent.Key, since);
             Assert.True(shown.At >= sent.At, $"{what}: shown before it was sent (the pages do not share a clock?)");
             delays.Add((what, shown.At - sent.At));
@@ -142,9 +142,10 @@ public sealed partial class MeetingTests(MosaicSite site)
 
         // The presenter pans meanwhile: the follower's view stays where the follower put it.
         await presenterPage.Page.FocusAsync("#image-view");
+        var beforePan = await presenter.NowAsync();
         await presenterPage.Page.Keyboard.PressAsync("ArrowLeft");
         await presenterPage.WaitForTilesAsync();
-        var moved = await presenter.LastSentAsync();
+        var moved = await presenter.SettledSentAsync(beforePan);
         await followerPage.Page.WaitForTimeoutAsync(500);
         Assert.Equal(applied, await follower.AppliedCountAsync());
         Assert.Equal(ownView, await ScreenPixelsAsync(followerPage));
@@ -178,9 +179,10 @@ public sealed partial class MeetingTests(MosaicSite site)
         await first.WaitForRoleAsync("following");
 
         // The new presenter drives: the old one follows its zoom.
+        var beforeZoom = await second.NowAsync();
         await secondPage.Page.ClickAsync(".leaflet-control-zoom-out");
         await secondPage.WaitForTilesAsync();
-        var zoomed = await second.LastSentAsync();
+        var zoomed = await second.SettledSentAsync(beforeZoom);
         // Only that it arrives: its time is measured in the first test.
         Assert.True(await first.AppliedAtAsync(zoomed.Key) >= zoomed.At);
         await AssertSameViewAsync(secondPage, firstPage);
@@ -204,18 +206,25 @@ public sealed partial class MeetingTests(MosaicSite site)
         await presenter.RecordAsync();
         var joinLink = await presenter.StartAsync();
 
-        // The follower's hub socket goes through Playwright, which can cut it like a network would.
+        // The follower's hub traffic goes through Playwright, which can cut it like a network would: the socket, and
+        // the negotiate, event-stream and long-polling requests SignalR falls back to when sockets fail.
         await using var followerPage = await site.OpenViewerAsync();
         var negotiations = 0;
-        followerPage.Page.Request += (_, request) =>
-        {
-            if (request.Url.Contains("/hubs/meeting/negotiate", StringComparison.Ordinal)) Interlocked.Increment(ref negotiations);
-        };
-        var sockets = new List<IWebSocketRoute>();
         var refuse = false;
+        await followerPage.Page.RouteAsync(HubRequest(), async route =>
+        {
+            if (Volatile.Read(ref refuse))
+            {
+                await route.AbortAsync("internetdisconnected");
+                return;
+            }
+            if (route.Request.Url.Contains("/hubs/meeting/negotiate", StringComparison.Ordinal)) Interlocked.Increment(ref negotiations);
+            await route.ContinueAsync();
+        });
+        var sockets = new List<IWebSocketRoute>();
         await followerPage.Page.RouteWebSocketAsync(HubSocket(), async socket =>
         {
-            if (refuse)
+            if (Volatile.Read(ref refuse))
             {
                 await socket.CloseAsync(new WebSocketRouteCloseOptions { Code = 1011, Reason = "network down" });
                 return;
@@ -230,25 +239,27 @@ public sealed partial class MeetingTests(MosaicSite site)
         await presenter.WaitForParticipantsAsync(2);
 
         // Cut, and keep refusing new sockets while the presenter moves on.
-        refuse = true;
+        Volatile.Write(ref refuse, true);
         IWebSocketRoute live;
         lock (sockets) live = sockets[^1];
         await live.CloseAsync(new WebSocketRouteCloseOptions { Code = 1011, Reason = "network down" });
         await followerPage.Page.WaitForFunctionAsync("() => document.querySelector('.meeting-bar').dataset.connection === 'down'",
             null, new PageWaitForFunctionOptions { Timeout = 10_000 });
         await presenter.WaitForParticipantsAsync(1);
+        var beforeZoom = await presenter.NowAsync();
         await presenterPage.Page.ClickAsync(".leaflet-control-zoom-in");
         await presenterPage.WaitForTilesAsync();
-        var missed = await presenter.LastSentAsync();
+        var missed = await presenter.SettledSentAsync(beforeZoom);
 
         // The network is back: the page reconnects on its own, joins again and shows what it missed.
-        refuse = false;
-        await follower.AppliedAtAsync(missed.Key);
+        Volatile.Write(ref refuse, false);
+        // Its next try comes within the client's longest retry delay (5 s, meeting-hub.js), then it joins again.
+        await follower.AppliedAtAsync(missed.Key, timeoutMs: 30_000);
         Assert.Equal("up", await follower.ConnectionAsync());
         Assert.Equal("following", await follower.RoleAsync());
         await presenter.WaitForParticipantsAsync(2);
         await AssertSameViewAsync(presenterPage, followerPage);
-        // A new connection (on a new socket, or another SignalR transport when sockets were refused), not the old one.
+        // A new connection, negotiated after the network came back, not the old one.
         Assert.True(Volatile.Read(ref negotiations) >= 2, $"{negotiations} hub negotiations: the page did not connect again");
     }
 
@@ -281,4 +292,7 @@ public sealed partial class MeetingTests(MosaicSite site)
 
     [GeneratedRegex("/hubs/meeting")]
     private static partial Regex HubSocket();
+
+    [GeneratedRegex(@"/hubs/meeting(/|\?|$)")]
+    private static partial Regex HubRequest();
 }

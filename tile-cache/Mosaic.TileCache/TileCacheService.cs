@@ -1,20 +1,97 @@
+using Microsoft.Extensions.Logging;
+using Microsoft.Extensions.Logging.Abstractions;
+using Mosaic.TileCache.Disk;
+using Mosaic.TileCache.Throttling;
+
 namespace Mosaic.TileCache;
 
-/// <summary>Looks a tile up in the store, else computes it once however many ask at the same moment, then keeps it.</summary>
-public sealed class TileCacheService(ITileStore store)
+/// <summary>
+/// Looks a tile up tier by tier (memory, disk, the shared tier when there is one) and renders it only when none has
+/// it, once however many ask at the same moment and within the render queue's bound. A tier that answers fills the
+/// tiers above it; a render fills them all. Memory hits answer at once and never wait behind renders.
+/// </summary>
+public sealed class TileCacheService
 {
-    private readonly SingleFlight _singleFlight = new();
+    private readonly ITileStore _memory;
+    private readonly DiskTileStore? _disk;
+    private readonly ISharedTileTier? _shared;
+    private readonly RenderQueue _queue;
+    private readonly ILogger _logger;
+    private readonly SingleFlight<TileLookup> _singleFlight = new();
 
-    public async ValueTask<(byte[] Bytes, bool Hit)> GetOrCreateAsync(string key, Func<byte[]> render)
+    public TileCacheService(ITileStore memory, DiskTileStore? disk = null, ISharedTileTier? shared = null, RenderQueue? queue = null,
+        ILogger<TileCacheService>? logger = null)
     {
-        if (store.TryGet(key, out var cached)) return (cached, true);
-        var bytes = await _singleFlight.RunAsync(key, () => Task.Run(() =>
+        ArgumentNullException.ThrowIfNull(memory);
+        _memory = memory;
+        _disk = disk;
+        _shared = shared;
+        _queue = queue ?? new RenderQueue(new RenderQueueOptions());
+        _logger = logger ?? NullLogger<TileCacheService>.Instance;
+    }
+
+    /// <summary>
+    /// The tile for the key, rendered by <paramref name="render"/> when no tier has it. Throws
+    /// <see cref="RenderQueueFullException"/> when it must be rendered and the queue is full. Cancelling stops this
+    /// caller's wait only: the shared lookup or render goes on for the others and for the cache.
+    /// </summary>
+    public ValueTask<TileLookup> GetOrCreateAsync(string key, Func<byte[]> render, CancellationToken cancellationToken = default)
+    {
+        ArgumentNullException.ThrowIfNull(key);
+        ArgumentNullException.ThrowIfNull(render);
+        if (_memory.TryGet(key, out var cached)) return ValueTask.FromResult(new TileLookup(cached, TileSource.Memory));
+        var flight = _singleFlight.RunAsync(key, () => Task.Run(() => LookUpOrRenderAsync(key, render)));
+        return new ValueTask<TileLookup>(cancellationToken.CanBeCanceled ? flight.WaitAsync(cancellationToken) : flight);
+    }
+
+    private async Task<TileLookup> LookUpOrRenderAsync(string key, Func<byte[]> render)
+    {
+        if (_memory.TryGet(key, out var raced)) return new TileLookup(raced, TileSource.Memory);
+        if (_disk is not null && await _disk.GetAsync(key).ConfigureAwait(false) is { } fromDisk)
         {
-            if (store.TryGet(key, out var raced)) return raced;
-            var rendered = render();
-            store.Set(key, rendered);
-            return rendered;
-        })).ConfigureAwait(false);
-        return (bytes, false);
+            _memory.Set(key, fromDisk);
+            return new TileLookup(fromDisk, TileSource.Disk);
+        }
+        if (await GetSharedAsync(key).ConfigureAwait(false) is { } fromShared)
+        {
+            _memory.Set(key, fromShared);
+            if (_disk is not null) await _disk.SetAsync(key, fromShared).ConfigureAwait(false);
+            return new TileLookup(fromShared, TileSource.Shared);
+        }
+
+        var rendered = await _queue.RunAsync(render).ConfigureAwait(false);
+        // Memory first: from here on new requests for the key hit it without waiting for the slower tiers.
+        _memory.Set(key, rendered);
+        if (_disk is not null) await _disk.SetAsync(key, rendered).ConfigureAwait(false);
+        await SetSharedAsync(key, rendered).ConfigureAwait(false);
+        return new TileLookup(rendered, TileSource.Rendered);
+    }
+
+    // The shared tier promises to answer a miss rather than throw; a broken promise must still not fail the request.
+    private async ValueTask<byte[]?> GetSharedAsync(string key)
+    {
+        if (_shared is null) return null;
+        try
+        {
+            return await _shared.GetAsync(key, CancellationToken.None).ConfigureAwait(false);
+        }
+        catch (Exception e)
+        {
+            _logger.LogWarning(e, "Shared tile tier failed to read {Key}; answered as a miss", key);
+            return null;
+        }
+    }
+
+    private async ValueTask SetSharedAsync(string key, byte[] bytes)
+    {
+        if (_shared is null) return;
+        try
+        {
+            await _shared.SetAsync(key, bytes, CancellationToken.None).ConfigureAwait(false);
+        }
+        catch (Exception e)
+        {
+            _logger.LogWarning(e, "Shared tile tier failed to keep {Key}; dropped", key);
+        }
     }
 }

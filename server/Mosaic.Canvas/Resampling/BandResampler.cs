@@ -99,15 +99,29 @@ internal static class BandResampler
         var G = grid.Spacing;
         double minU = double.PositiveInfinity, maxU = double.NegativeInfinity, minV = double.PositiveInfinity, maxV = double.NegativeInfinity;
         int k0 = cs / G - grid.FirstColumn, k1 = ce / G + 1 - grid.FirstColumn;
-        for (int j = rs / G, jEnd = re / G + 1; j <= jEnd; j++)
+        // A position is bilinear in its cell, so over rows [a, b] of a cell it lies within the node columns
+        // interpolated at rows a and b, computed as Fill computes them. Bounding by those rather than by the cell's
+        // node rows keeps a strip of a few rows from reading the chip rows of whole cells (G rows or more).
+        for (int j = rs / G, jEnd = re / G; j <= jEnd; j++)
         {
-            var row = grid.Row(j);
-            for (var k = k0; k <= k1; k++)
+            double[] top = grid.Row(j), bottom = grid.Row(j + 1);
+            int a = Math.Max(rs, j * G), b = Math.Min(re, j * G + G - 1);
+            for (var end = 0; end < 2; end++)
             {
-                double u = row[2 * k] - 1, v = row[2 * k + 1] - 1;
-                if (double.IsNaN(u) || double.IsNaN(v)) continue;
-                minU = Math.Min(minU, u); maxU = Math.Max(maxU, u);
-                minV = Math.Min(minV, v); maxV = Math.Max(maxV, v);
+                double fy = (double)((end == 0 ? a : b) - j * G) / G;
+                for (var k = k0; k <= k1; k++)
+                {
+                    int at = 2 * k;
+                    double u = top[at] + fy * (bottom[at] - top[at]) - 1, v = top[at + 1] + fy * (bottom[at + 1] - top[at + 1]) - 1;
+                    if (double.IsNaN(u) || double.IsNaN(v))
+                    {
+                        // A node without a sky solution: its cell goes by the exact chain, so keep the finite nodes' hull.
+                        Include(top[at] - 1, top[at + 1] - 1, ref minU, ref maxU, ref minV, ref maxV);
+                        Include(bottom[at] - 1, bottom[at + 1] - 1, ref minU, ref maxU, ref minV, ref maxV);
+                        continue;
+                    }
+                    Include(u, v, ref minU, ref maxU, ref minV, ref maxV);
+                }
             }
         }
         int width = chip.Plane.Width, height = chip.Plane.Height;
@@ -122,6 +136,15 @@ internal static class BandResampler
         return x0 <= x1 && y0 <= y1;
     }
 
+    private static void Include(double u, double v, ref double minU, ref double maxU, ref double minV, ref double maxV)
+    {
+        if (double.IsNaN(u) || double.IsNaN(v)) return;
+        minU = Math.Min(minU, u); maxU = Math.Max(maxU, u);
+        minV = Math.Min(minV, v); maxV = Math.Max(maxV, v);
+    }
+
+    // Runs once per build in a short-lived process: compiled optimised at first call, not after tiering catches up.
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private static void Fill(PlacedChip chip, int rs, int re, int cs, int ce, ChipRect rect, OutputBox box, Span<float> destination, double[]? best)
     {
         var grid = chip.Grid;
@@ -237,6 +260,7 @@ internal static class BandResampler
     /// pixels at a time where AVX2 is there (their chip values gathered, the same arithmetic lane by lane, so the
     /// same bits); a group with a pixel off the chip, at the rectangle's edge or next to a NaN goes pixel by pixel.
     /// </summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private static unsafe void FillCell(PlacedChip chip, ChipRect rect, double startX, double sx, double startY, double sy, int lo, int hi, Span<float> output)
     {
         var m = lo;
@@ -294,6 +318,7 @@ internal static class BandResampler
     }
 
     /// <summary><see cref="FillCell"/> eight pixels at a time with AVX-512; returns the first step not done.</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private static unsafe int FillCellWide(PlacedChip chip, ChipRect rect, double startX, double sx, double startY, double sy, int lo, int hi, Span<float> output)
     {
         const int Lanes = 8;
@@ -348,6 +373,7 @@ internal static class BandResampler
     }
 
     /// <summary>Steps [lo, hi) of <see cref="FillCell"/> one pixel at a time.</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private static void FillPixels(PlacedChip chip, ChipRect rect, double startX, double sx, double startY, double sy, int lo, int hi, Span<float> output)
     {
         int width = chip.Plane.Width, height = chip.Plane.Height;

@@ -1,3 +1,5 @@
+using System.Runtime.CompilerServices;
+
 namespace Mosaic.Canvas.Resampling;
 
 /// <summary>Bounds the steps of a linear walk that can reach a range, so pixels outside a chip cost nothing.</summary>
@@ -11,6 +13,7 @@ internal static class StepWindow
     /// on each side so rounding never drops a step that lies inside; the caller still tests each kept step exactly.
     /// Start and step must be finite.
     /// </summary>
+    [MethodImpl(MethodImplOptions.AggressiveInlining)]
     public static void Narrow(double start, double step, double low, double high, ref int first, ref int end)
     {
         if (!(Math.Abs(step) > MinStep)) return;

@@ -32,6 +32,13 @@ internal static class GzipInflater
         }
     }
 
+    /// <summary>
+    /// Deflate (RFC 1951) codes at most 258 bytes in one 1-bit literal/length code plus a 1-bit distance code, so no
+    /// stream inflates by more than about 1032:1 (from memory of the format's limits; 1100 leaves room). A stream
+    /// shorter than this for its tile is refused before the tile's buffers exist.
+    /// </summary>
+    public static long MinimumStreamBytes(long decodedBytes) => decodedBytes / 1100;
+
     /// <summary>GZIP_2 stores the most significant bytes of all values first, then the next bytes, and so on: put them back together.</summary>
     public static void Unshuffle(ReadOnlySpan<byte> shuffled, Span<byte> bigEndian, int valueBytes)
     {

@@ -61,6 +61,20 @@ internal static class RiceDecoder
                 }
             }
         }
+        // The encoder flushes its last partial byte and stops: whole bytes left over mean the stream codes another tile.
+        if (bits.UnreadBytes > 0)
+            throw new TileDataException($"the RICE_1 stream has {bits.UnreadBytes} bytes after the tile's last value");
+    }
+
+    /// <summary>
+    /// The shortest stream that can code <paramref name="pixels"/> values: the first value, then one code-length field
+    /// per block (section 10.4.1). Checked before any tile buffer is allocated, so a few bytes cannot claim a huge tile.
+    /// </summary>
+    public static long MinimumStreamBytes(long pixels, int blockSize, int bytePix)
+    {
+        var fsBits = bytePix switch { 1 => 3, 2 => 4, _ => 5 };
+        var blocks = (pixels + blockSize - 1) / blockSize;
+        return bytePix + (blocks * fsBits + 7) / 8;
     }
 
     [MethodImpl(MethodImplOptions.AggressiveInlining)]
@@ -82,6 +96,9 @@ internal static class RiceDecoder
         private int _position;
         private ulong _buffer;
         private int _count;
+
+        /// <summary>Whole bytes not yet consumed, counting those already buffered.</summary>
+        public readonly int UnreadBytes => _data.Length - _position + _count / 8;
 
         [MethodImpl(MethodImplOptions.AggressiveInlining)]
         private void Fill()

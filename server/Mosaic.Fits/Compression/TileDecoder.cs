@@ -20,6 +20,7 @@ internal sealed class TileDecoder(SafeFileHandle handle, CompressedImageLayout l
         var height = (int)Math.Min(layout.Tile[1], layout.Axes[1] - (long)tileY * layout.Tile[1]);
         var planePixels = width * height;
         var tilePixels = checked((int)(planePixels * layout.PlanesPerTile));
+        RefuseShortStream(entry, tilePixels);
         var output = new byte[planePixels * SampleBytes];
 
         if (!entry.Compressed.IsEmpty) DecodeCompressed(entry, width, height, tilePixels, planePixels, output);
@@ -47,6 +48,35 @@ internal sealed class TileDecoder(SafeFileHandle handle, CompressedImageLayout l
 
         long? blank = layout.ZBitPix > 0 ? entry.NullValue : null;
         return new DecodedTile(output, width, height, new SampleScaling(layout.ZBitPix, bScale, bZero, blank));
+    }
+
+    /// <summary>
+    /// A decompression bomb (a few bytes claiming a tile of millions of pixels) is refused from the stream's length
+    /// alone, before the tile's buffers are allocated. PLIO_1 and HCOMPRESS_1 can code an empty tile in a few bytes, so
+    /// for them only the tile-size cap of <see cref="CompressedImageLayout.MaxTilePixels"/> bounds the work.
+    /// </summary>
+    private void RefuseShortStream(in TileEntry entry, int tilePixels)
+    {
+        long minimum = 0, length = 0;
+        var lossless = !layout.IsQuantized;
+        if (!entry.Compressed.IsEmpty)
+        {
+            length = entry.Compressed.Length;
+            minimum = layout.Codec switch
+            {
+                TileCodec.Rice => RiceDecoder.MinimumStreamBytes(tilePixels, layout.BlockSize, layout.BytePix),
+                TileCodec.Gzip1 or TileCodec.Gzip2 => GzipInflater.MinimumStreamBytes((long)tilePixels * (lossless ? SampleBytes : 4)),
+                _ => 0,
+            };
+        }
+        else if (!entry.Gzip.IsEmpty)
+        {
+            length = entry.Gzip.Length;
+            minimum = GzipInflater.MinimumStreamBytes((long)tilePixels * SampleBytes);
+        }
+        if (length < minimum)
+            throw new TileDataException(
+                $"{length} compressed bytes cannot code a tile of {tilePixels} pixels ({layout.CodecName} needs at least {minimum}); a decompression bomb or a cut stream");
     }
 
     private void DecodeCompressed(in TileEntry entry, int width, int height, int tilePixels, int planePixels, byte[] output)

@@ -35,8 +35,8 @@ internal static class FileScanner
             var dataOffset = offset + headerLength;
             var available = fileLength - dataOffset;
             if (layout.DataLength > available)
-                throw context.Error(null,
-                    $"truncated data: the header declares {layout.DataLength} data bytes but only {available} remain in the file");
+                throw context.Error("NAXIS",
+                    $"truncated data: BITPIX, NAXISn, PCOUNT and GCOUNT declare {layout.DataLength} data bytes but only {available} remain in the file (section 4.4.1.1)");
 
             if (CompressedImageReader.IsCompressedImage(header))
                 hdus.Add(CompressedImageReader.Read(index, header, layout, handle, offset, dataOffset, context));

@@ -22,7 +22,7 @@ internal static class HeaderReader
         {
             var blockOffset = offset + (long)b * BlockSize;
             if (fileLength - blockOffset < BlockSize)
-                throw context.Error(null, fileLength - blockOffset <= 0
+                throw context.Error("END", fileLength - blockOffset <= 0
                     ? "the header has no END record before the end of the file (truncated header or missing END)"
                     : $"truncated header: the file ends {fileLength - blockOffset} bytes into a 2880-byte header block, before END");
             ReadExactly(handle, block, blockOffset, context);
@@ -42,7 +42,7 @@ internal static class HeaderReader
                 builder.Add(record);
             }
         }
-        throw context.Error(null, $"the header has no END within {MaxBlocks} blocks ({MaxBlocks * (long)BlockSize} bytes); refusing a header this large");
+        throw context.Error("END", $"the header has no END within {MaxBlocks} blocks ({MaxBlocks * (long)BlockSize} bytes); refusing a header this large");
     }
 
     /// <summary>Section 4.1.1: header bytes are restricted to printable ASCII 0x20-0x7E.</summary>
@@ -76,7 +76,7 @@ internal static class HeaderReader
         while (done < buffer.Length)
         {
             var n = RandomAccess.Read(handle, buffer[done..], offset + done);
-            if (n == 0) throw context.Error(null, "truncated header: the file ended while reading a header block");
+            if (n == 0) throw context.Error("END", "truncated header: the file ended while reading a header block");
             done += n;
         }
     }

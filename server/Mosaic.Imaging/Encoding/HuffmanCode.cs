@@ -7,10 +7,13 @@ namespace Mosaic.Imaging.Encoding;
 /// </summary>
 internal static class HuffmanCode
 {
+    private const int SymbolBits = 9; // deflate's largest alphabet has 288 symbols
+
     /// <summary>Code lengths for freqs (0 for unused symbols); at least two symbols always get a code, so the code is complete.</summary>
     public static void Lengths(ReadOnlySpan<long> frequencies, int maxLength, Span<byte> lengths)
     {
         var n = frequencies.Length;
+        if (n > 1 << SymbolBits) throw new ArgumentException($"at most {1 << SymbolBits} symbols, not {n}", nameof(frequencies));
         Span<long> f = stackalloc long[n];
         frequencies.CopyTo(f);
         var used = 0;
@@ -21,20 +24,16 @@ internal static class HuffmanCode
         Span<int> parent = stackalloc int[2 * n];
         Span<long> weight = stackalloc long[2 * n];
         Span<int> order = stackalloc int[n];
+        Span<long> keys = stackalloc long[n];
         Span<int> depth = stackalloc int[2 * n];
         while (true)
         {
             var leaves = 0;
-            for (var i = 0; i < n; i++) if (f[i] > 0) order[leaves++] = i;
+            // Leaves sorted by weight, ties by symbol: one key each, weight above the symbol's 9 bits.
+            for (var i = 0; i < n; i++) if (f[i] > 0) keys[leaves++] = (f[i] << SymbolBits) | (long)i;
+            keys[..leaves].Sort();
             var sorted = order[..leaves];
-            // Sort leaves by weight (insertion sort over at most 288 symbols is cheap next to the data).
-            for (var i = 1; i < sorted.Length; i++)
-            {
-                var s = sorted[i];
-                var j = i - 1;
-                while (j >= 0 && f[sorted[j]] > f[s]) { sorted[j + 1] = sorted[j]; j--; }
-                sorted[j + 1] = s;
-            }
+            for (var i = 0; i < leaves; i++) sorted[i] = (int)(keys[i] & ((1 << SymbolBits) - 1));
             // Two-queue construction: leaves in order, then internal nodes in the order made (also sorted).
             for (var i = 0; i < leaves; i++) weight[i] = f[sorted[i]];
             int leaf = 0, node = leaves, made = leaves;
@@ -91,10 +90,13 @@ internal static class HuffmanCode
         return node++;
     }
 
+    // The 16 low bits reversed by swapping ever smaller halves, then moved down to the code's length (at most 16).
     private static uint Reverse(uint code, int length)
     {
-        uint r = 0;
-        for (var i = 0; i < length; i++) { r = (r << 1) | (code & 1); code >>= 1; }
-        return r;
+        code = ((code >> 1) & 0x5555) | ((code & 0x5555) << 1);
+        code = ((code >> 2) & 0x3333) | ((code & 0x3333) << 2);
+        code = ((code >> 4) & 0x0F0F) | ((code & 0x0F0F) << 4);
+        code = ((code >> 8) & 0x00FF) | ((code & 0x00FF) << 8);
+        return code >> (16 - length);
     }
 }

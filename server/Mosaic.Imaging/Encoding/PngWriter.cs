@@ -145,11 +145,11 @@ public sealed class PngWriter : IDisposable
         _ => throw new ArgumentOutOfRangeException(nameof(compression), compression, "compression must be HuffmanOnly, ZlibHuffmanOnly, Fastest or Stored"),
     };
 
-    // Our deflater asks for its worst case (15 bits a byte) for each batch, so start with that for the first one;
+    // Our deflater asks for its worst case (14 bits a byte) for each batch, so start with that for the first one;
     // zlib's Huffman coding gets noisy sky to about 70%; stored adds 5 bytes per 64 KiB block.
     private static int InitialCapacity(long filteredLength, PngCompression compression) => (int)Math.Min(Array.MaxLength / 2, compression switch
     {
-        PngCompression.HuffmanOnly => Math.Min(filteredLength, BatchBytes) * 15 / 8 + 2048,
+        PngCompression.HuffmanOnly => Math.Min(filteredLength, BatchBytes) * 14 / 8 + 2048,
         PngCompression.Stored => filteredLength + filteredLength / 8192 + 1024,
         _ => filteredLength * 3 / 4 + 1024,
     });

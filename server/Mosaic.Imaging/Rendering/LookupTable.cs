@@ -42,9 +42,39 @@ internal sealed class LookupTable
     {
         // + 1 for the NaN entry, + 3 so a 4-byte gather at the last index stays inside the array.
         var levels = new byte[entries + 4];
-        double last = entries - 1;
-        for (var i = 0; i < entries; i++) levels[i] = levelOf.At(i / last);
+        FillMonotone(levels.AsSpan(0, entries), levelOf);
         return new LookupTable(limits, levels, entries);
+    }
+
+    // The level function is monotone in u (LevelFunction), so where the two ends of a stretch of entries have the
+    // same level every entry between has it too: evaluate ends and split only stretches that hold a step. That is
+    // about (levels x 2 log2 entries) evaluations instead of one per entry (65,536 for a steep curve), which made a
+    // display with new limits cost more to compile than the tile it renders.
+    private static void FillMonotone(Span<byte> levels, LevelFunction levelOf)
+    {
+        var last = levels.Length - 1;
+        double scale = last;
+        levels[0] = levelOf.At(0);
+        if (last == 0) return;
+        levels[last] = levelOf.At(1);
+        Span<(int Lo, int Hi)> pending = stackalloc (int, int)[64];
+        var count = 0;
+        pending[count++] = (0, last);
+        while (count > 0)
+        {
+            var (lo, hi) = pending[--count];
+            if (hi - lo < 2) continue;
+            if (levels[lo] == levels[hi])
+            {
+                levels[(lo + 1)..hi].Fill(levels[lo]);
+                continue;
+            }
+            var mid = lo + (hi - lo) / 2;
+            levels[mid] = levelOf.At(mid / scale);
+            // Depth first, so at most one pending stretch per halving: 64 slots cover any int length.
+            pending[count++] = (mid, hi);
+            pending[count++] = (lo, mid);
+        }
     }
 
     public int LargestStep()

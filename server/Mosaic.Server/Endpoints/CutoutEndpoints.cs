@@ -4,6 +4,7 @@ using System.Text;
 using Mosaic.Server.Cutouts;
 using Mosaic.Server.Fields;
 using Mosaic.Server.Hosting;
+using Mosaic.Server.Security;
 
 namespace Mosaic.Server.Endpoints;
 
@@ -14,7 +15,8 @@ public static class CutoutEndpoints
         var group = routes.MapGroup("/api/fields").WithTags("Cutouts");
         group.MapGet("/{field}/cutout.fits", Cutout)
             .WithSummary("A FITS file of a pixel box (x0, y0, x1, y1) or of a sky position (ra and dec, or position) and size: the original values, BITPIX and scaling, the source header with CRPIX shifted (SIP/TPV kept), EXTNAME, DATE and HISTORY of where it was cut from. hdu=canvas with a box: the resampled canvas as float32 with its TAN WCS.")
-            .Produces(StatusCodes.Status200OK, contentType: "application/fits");
+            .Produces(StatusCodes.Status200OK, contentType: "application/fits")
+            .Expensive();
         return group;
     }
 

@@ -22,11 +22,49 @@ public static class DisplayQuery
     private static readonly string[] LimitKinds = ["auto", "value", "percentile", "robust"];
     private static readonly string[] StretchNames = ["linear", "sqrt", "power", "log", "asinh", "histeq"];
 
+    // Most tile requests carry no display parameters (or only masked=transparent): those get one shared instance,
+    // made by the full parse below, instead of a dozen allocations each. DisplaySettings is an immutable record.
+    private static readonly Lazy<DisplaySettings> DefaultTransparent = new(() => ParseDefault(false));
+    private static readonly Lazy<DisplaySettings> DefaultPaletteMasked = new(() => ParseDefault(true));
+
+    // OnlyMaskedMayBeGiven names every parameter but 'masked'; a parameter added later must be added there too.
+    private const int ParameterCount = 18;
+
+    private static DisplaySettings ParseDefault(bool paletteMaskByDefault)
+    {
+        var count = typeof(DisplayParameters).GetProperties().Length;
+        if (count != ParameterCount)
+            throw new InvalidOperationException($"DisplayParameters has {count} parameters, DisplayQuery.OnlyMaskedMayBeGiven knows {ParameterCount}: add the new ones there.");
+        return ParseGiven(new DisplayParameters(), paletteMaskByDefault);
+    }
+
     /// <param name="parameters">The bound query.</param>
     /// <param name="paletteMaskByDefault">Without 'masked': the palette's own masked colour (true, render.png) or transparent (false, tiles).</param>
     public static DisplaySettings Parse(DisplayParameters parameters, bool paletteMaskByDefault = false)
     {
         ArgumentNullException.ThrowIfNull(parameters);
+        if (OnlyMaskedMayBeGiven(parameters))
+        {
+            if (string.IsNullOrWhiteSpace(parameters.Masked))
+                return paletteMaskByDefault ? DefaultPaletteMasked.Value : DefaultTransparent.Value;
+            if (parameters.Masked.Trim().Equals(TransparentName, StringComparison.OrdinalIgnoreCase))
+                return DefaultTransparent.Value;
+        }
+        return ParseGiven(parameters, paletteMaskByDefault);
+    }
+
+    private const string TransparentName = "transparent";
+
+    private static bool OnlyMaskedMayBeGiven(DisplayParameters p) =>
+        IsAbsent(p.Limits) && IsAbsent(p.Lo) && IsAbsent(p.Hi) && IsAbsent(p.Plo) && IsAbsent(p.Phi) && IsAbsent(p.Klo) && IsAbsent(p.Khi)
+        && IsAbsent(p.Stretch) && IsAbsent(p.Gamma) && IsAbsent(p.A) && IsAbsent(p.Soft) && IsAbsent(p.Pivot) && IsAbsent(p.Palette)
+        && IsAbsent(p.CubehelixStart) && IsAbsent(p.CubehelixRotations) && IsAbsent(p.CubehelixHue) && IsAbsent(p.CubehelixGamma);
+
+    // The same test the parsers apply: absent, empty and blank all mean "not given".
+    private static bool IsAbsent(string? text) => string.IsNullOrWhiteSpace(text);
+
+    private static DisplaySettings ParseGiven(DisplayParameters parameters, bool paletteMaskByDefault)
+    {
         var palette = ParsePalette(parameters);
         var masked = string.IsNullOrWhiteSpace(parameters.Masked)
             ? (paletteMaskByDefault ? MaskedColor.Of(palette.DefaultMaskedColor) : MaskedColor.Transparent)

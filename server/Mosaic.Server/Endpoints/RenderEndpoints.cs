@@ -5,6 +5,8 @@ using Mosaic.Server.Composite;
 using Mosaic.Server.Errors;
 using Mosaic.Server.Fields;
 using Mosaic.Server.Rendering;
+using Mosaic.Server.Security;
+using Mosaic.TileCache.Throttling;
 
 namespace Mosaic.Server.Endpoints;
 
@@ -15,11 +17,12 @@ public static class RenderEndpoints
         var group = routes.MapGroup("/api/fields").WithTags("Render");
         group.MapGet("/{field}/render.png", Render)
             .WithSummary("A PNG of the box [x0, x1] x [y0, y1] (FITS 1-based, inclusive) of one HDU at native resolution, row y1 at the top, with the display the query describes (at most 50 megapixels). Gray palette: 8-bit grayscale (gray + alpha with masked=transparent and masked pixels, RGB with a masked colour); other palettes: indexed.")
-            .Produces(StatusCodes.Status200OK, contentType: "image/png");
+            .Produces(StatusCodes.Status200OK, contentType: "image/png")
+            .Expensive();
         return group;
     }
 
-    private static FileContentHttpResult Render(
+    private static async Task<FileContentHttpResult> Render(
         string field,
         [Description("Band name (case-insensitive); the field's first band when absent.")] string? band,
         [Description("Chip: HDU index (the band's chip number where the band spans several files), EXTNAME or chip name, or canvas (the whole-field canvas); may be left out where every band has one image HDU.")] string? hdu,
@@ -29,10 +32,10 @@ public static class RenderEndpoints
         [Description("Last row (inclusive), drawn at the top.")] string? y1,
         [AsParameters] DisplayParameters display,
         [AsParameters] CompositeParameters composite,
-        HttpContext context, FieldCatalog catalog, RegionImageService images)
+        HttpContext context, FieldCatalog catalog, RegionImageService images, RenderQueue queue)
     {
         if (CompositeQuery.Parse(composite, display, context.Request.Query) is { } request)
-            return RenderComposite(field, hdu, x0, y0, x1, y1, request, context, catalog, images);
+            return await RenderComposite(field, hdu, x0, y0, x1, y1, request, context, catalog, images, queue);
         var target = catalog.Get(field).ResolveBand(band);
         var image = RegionQuery.ResolveHdu(target, hdu);
         var box = RegionQuery.RequiredBox(image, x0, y0, x1, y1);
@@ -40,7 +43,8 @@ public static class RenderEndpoints
             throw MosaicRequestException.BadParameter("x0,y0,x1,y1",
                 $"The box is {box.Width} x {box.Height} = {box.PixelCount} pixels; render.png makes at most {RegionImageService.MaxPixels} (50 megapixels): ask for a smaller box.");
         var settings = DisplayQuery.Parse(display, paletteMaskByDefault: true);
-        var png = images.RenderPng(image, box, settings);
+        // Shares the tiles' render queue, so a large image takes a core from tile rendering instead of one beside it.
+        var png = await queue.RunAsync(() => images.RenderPng(image, box, settings, context.RequestAborted), context.RequestAborted);
 
         var name = $"{target.Field.Id}-{target.Name}-{image.Index}-{box.X0}-{box.Y0}-{box.X1}-{box.Y1}.png";
         context.Response.Headers.ContentDisposition = $"inline; filename=\"{SafeFileName(name)}\"";
@@ -48,8 +52,8 @@ public static class RenderEndpoints
         return TypedResults.File(png, "image/png");
     }
 
-    private static FileContentHttpResult RenderComposite(string field, string? hdu, string? x0, string? y0, string? x1, string? y1,
-        CompositeRequest request, HttpContext context, FieldCatalog catalog, RegionImageService images)
+    private static async Task<FileContentHttpResult> RenderComposite(string field, string? hdu, string? x0, string? y0, string? x1, string? y1,
+        CompositeRequest request, HttpContext context, FieldCatalog catalog, RegionImageService images, RenderQueue queue)
     {
         var found = catalog.Get(field);
         if (string.IsNullOrWhiteSpace(hdu))
@@ -65,7 +69,7 @@ public static class RenderEndpoints
         if (box.PixelCount > RegionImageService.MaxPixels)
             throw MosaicRequestException.BadParameter("x0,y0,x1,y1",
                 $"The box is {box.Width} x {box.Height} = {box.PixelCount} pixels; render.png makes at most {RegionImageService.MaxPixels} (50 megapixels): ask for a smaller box.");
-        var png = images.RenderCompositePng(target, box, request.Settings);
+        var png = await queue.RunAsync(() => images.RenderCompositePng(target, box, request.Settings, context.RequestAborted), context.RequestAborted);
         var bandNames = string.Join('-', target.Bands.AsEnumerable().Select(b => b.Name));
         var name = $"{found.Id}-{bandNames}-{image.Index}-{box.X0}-{box.Y0}-{box.X1}-{box.Y1}.png";
         context.Response.Headers.ContentDisposition = $"inline; filename=\"{SafeFileName(name)}\"";

@@ -7,6 +7,7 @@ using Mosaic.Server.Fields;
 using Mosaic.Server.Histograms;
 using Mosaic.Server.Pyramids;
 using Mosaic.Server.Regions;
+using Mosaic.Server.Security;
 
 namespace Mosaic.Server.Endpoints;
 
@@ -18,11 +19,17 @@ public static class StatisticsEndpoints
     {
         var group = routes.MapGroup("/api/fields").WithTags("Statistics");
         group.MapGet("/{field}/stats", Stats)
-            .WithSummary("Statistics of a band: field-wide (all HDUs, from the histogram, exact: false) without a box; with x0, y0, x1, y1 those of the box's pixels (exact up to 16 Mpx, else from a reduced level).");
+            .WithSummary("Statistics of a band: field-wide (all HDUs, from the histogram, exact: false) without a box; with x0, y0, x1, y1 those of the box's pixels (exact up to 16 Mpx, else from a reduced level).")
+            .Expensive(HasBox);
         group.MapGet("/{field}/histogram", Histogram)
-            .WithSummary("Counts of the band's finite pixels (all HDUs) in equal bins over [lo, hi], with the counts below, above and masked.");
+            .WithSummary("Counts of the band's finite pixels (all HDUs) in equal bins over [lo, hi], with the counts below, above and masked.")
+            .Expensive();
         return group;
     }
+
+    /// <summary>Field-wide statistics are read from the stored histogram: only a box costs pixels.</summary>
+    private static bool HasBox(HttpRequest request) =>
+        RegionQuery.HasBox(request.Query["x0"], request.Query["y0"], request.Query["x1"], request.Query["y1"]);
 
     private static Ok<StatsDto> Stats(
         string field,

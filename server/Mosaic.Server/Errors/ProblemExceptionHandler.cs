@@ -17,6 +17,8 @@ public sealed class ProblemExceptionHandler(IProblemDetailsService problemDetail
         context.Response.Headers.CacheControl = "no-store";
         if (exception is PyramidNotReadyException notReady)
             context.Response.Headers.RetryAfter = notReady.RetryAfterSeconds.ToString(System.Globalization.CultureInfo.InvariantCulture);
+        else if (exception is Mosaic.TileCache.Throttling.RenderQueueFullException full)
+            context.Response.Headers.RetryAfter = full.RetryAfterSeconds.ToString(System.Globalization.CultureInfo.InvariantCulture);
 
         var problem = new Microsoft.AspNetCore.Mvc.ProblemDetails { Status = status, Title = title, Detail = detail };
         foreach (var (key, value) in extensions) problem.Extensions[key] = value;
@@ -31,6 +33,10 @@ public sealed class ProblemExceptionHandler(IProblemDetailsService problemDetail
             case PyramidNotReadyException e:
                 extensions["progress"] = e.Progress;
                 return (e.Status, e.Title, e.Message, extensions);
+            case Mosaic.TileCache.Throttling.RenderQueueFullException e:
+                // RFC 6585 section 4: 429 Too Many Requests, with Retry-After saying how long to wait.
+                extensions["retryAfterSeconds"] = e.RetryAfterSeconds;
+                return (StatusCodes.Status429TooManyRequests, "Too many renders", e.Message, extensions);
             case MosaicRequestException e:
                 if (e.Parameter is not null) extensions["parameter"] = e.Parameter;
                 return (e.Status, e.Title, e.Message, extensions);

@@ -21,6 +21,15 @@ public sealed class Field
 
     public bool IsFolder { get; }
 
+    /// <summary>
+    /// Marked by a file ".mosaic-private" in the field's folder, or "{file name}.mosaic-private" beside a single-file
+    /// field: then only callers with an access token, or a share token for this field, see it at all.
+    /// </summary>
+    public bool IsPrivate { get; internal set; }
+
+    /// <summary>The name of the marker file inside a field's folder (a single file's marker is its name plus this).</summary>
+    public const string PrivateMarker = ".mosaic-private";
+
     public IReadOnlyList<FieldBand> Bands => _bands;
 
     /// <summary>Every file of the field, readable or not, in name order.</summary>

@@ -28,14 +28,19 @@ public sealed class FieldCatalog(MosaicOptions options, ILogger<FieldCatalog> lo
 
     public Field Get(string id)
     {
+        // A field the caller may not see is not there for them, wherever its id came from.
+        if (Access.FieldScope.IsHidden(id)) throw NoSuchField(id);
         var field = Find(id);
         if (field is null)
         {
             lock (_gate) _lastScanUtc = DateTime.MinValue; // a new file may just have landed
             field = Find(id);
         }
-        return field ?? throw Errors.MosaicRequestException.NotFound("Field", $"There is no field '{id}'.", "field");
+        return field ?? throw NoSuchField(id);
     }
+
+    private static Errors.MosaicRequestException NoSuchField(string id) =>
+        Errors.MosaicRequestException.NotFound("Field", $"There is no field '{id}'.", "field");
 
     private Field? Find(string id) => Fields.FirstOrDefault(f => string.Equals(f.Id, id, StringComparison.Ordinal));
 
@@ -69,7 +74,7 @@ public sealed class FieldCatalog(MosaicOptions options, ILogger<FieldCatalog> lo
             if (entry.Name.StartsWith('.') || !IsInside(entry, root)) continue;
             if (entry is DirectoryInfo folder)
             {
-                var field = new Field(folder.Name, folder.FullName, isFolder: true);
+                var field = new Field(folder.Name, folder.FullName, isFolder: true) { IsPrivate = File.Exists(Path.Combine(folder.FullName, Field.PrivateMarker)) };
                 var files = folder.EnumerateFiles().Where(f => FieldNaming.IsFitsFile(f.Name) && IsInside(f, root)).OrderBy(f => f.Name, StringComparer.Ordinal)
                     .Select(f => FieldFile.Open(f, known.GetValueOrDefault(f.FullName), logger)).ToList();
                 BandGrouping.Group(field, files, folder.Name);
@@ -77,7 +82,7 @@ public sealed class FieldCatalog(MosaicOptions options, ILogger<FieldCatalog> lo
             }
             else if (entry is FileInfo file && FieldNaming.IsFitsFile(file.Name))
             {
-                var field = new Field(FieldNaming.Stem(file.Name), file.FullName, isFolder: false);
+                var field = new Field(FieldNaming.Stem(file.Name), file.FullName, isFolder: false) { IsPrivate = File.Exists(file.FullName + Field.PrivateMarker) };
                 BandGrouping.Group(field, [FieldFile.Open(file, known.GetValueOrDefault(file.FullName), logger)], folderName: null);
                 fields.Add(field);
             }

@@ -118,14 +118,13 @@ public static class IngestCommand
             display.Update(new IngestSnapshot(0, totalPixels, cached, targets.Count, TimeSpan.Zero, null));
             pyramids.StartAsync(CancellationToken.None).GetAwaiter().GetResult();
         }
-        var lastFinished = TimeSpan.Zero;
         try
         {
             while (toBuild.Count > 0)
             {
                 var done = 0.0;
                 var finished = cached;
-                string? current = null;
+                var current = new List<string>();
                 foreach (var i in toBuild)
                 {
                     var status = pyramids.GetStatus(targets[i]);
@@ -133,21 +132,17 @@ public static class IngestCommand
                     {
                         finished++;
                         done += Pixels(targets[i]);
-                        if (states[i] != status.State)
-                        {
-                            // One build at a time, so a pyramid took from the last one seen finished to now (to a poll).
-                            Finished(targets[i], status, clock.Elapsed - lastFinished, display, failures);
-                            lastFinished = clock.Elapsed;
-                        }
+                        if (states[i] != status.State) Finished(targets[i], status, display, failures);
                     }
                     else
                     {
                         done += status.Progress * Pixels(targets[i]);
-                        if (status.State == PyramidState.Building) current = targets[i].Description;
+                        if (status.State == PyramidState.Building) current.Add(targets[i].Description);
                     }
                     states[i] = status.State;
                 }
-                var snapshot = new IngestSnapshot(done, totalPixels, finished, targets.Count, clock.Elapsed, current);
+                // Two builds can run at once (PyramidService.ConcurrentBuilds): the line names both.
+                var snapshot = new IngestSnapshot(done, totalPixels, finished, targets.Count, clock.Elapsed, current.Count == 0 ? null : string.Join(" + ", current));
                 if (finished == targets.Count)
                 {
                     display.Finish(snapshot with { Current = null });
@@ -188,11 +183,12 @@ public static class IngestCommand
         return Succeeded;
     }
 
-    private static void Finished(FieldHdu target, PyramidStatus status, TimeSpan took, IngestDisplay display, List<string> failures)
+    private static void Finished(FieldHdu target, PyramidStatus status, IngestDisplay display, List<string> failures)
     {
         if (status.State == PyramidState.Ready)
         {
-            display.Note(string.Create(CultureInfo.InvariantCulture, $"  ready   {target.Description} ({target.Plane.Width} x {target.Plane.Height}) in {took.TotalSeconds:F1} s"));
+            var took = status.BuildTime ?? TimeSpan.Zero;
+            display.Note(string.Create(CultureInfo.InvariantCulture, $"  ready   {target.Description} ({target.Plane.Width} x {target.Plane.Height}) in {took.TotalSeconds:F2} s"));
             return;
         }
         failures.Add($"{target.Description}: {status.Error}");

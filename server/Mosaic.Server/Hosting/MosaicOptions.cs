@@ -22,6 +22,18 @@ public sealed class MosaicOptions
 
     public const long DefaultCutoutPixelLimit = 64L << 20;
 
+    /// <summary>--redis host:port[,name=value...]: Redis shared by several instances (tiles, meetings, hub messages); null for none.</summary>
+    public string? Redis { get; init; }
+
+    /// <summary>Rate limits and the render timeout of the expensive endpoints (--expensive-rate, --expensive-burst, --expensive-concurrency, --render-timeout).</summary>
+    public Security.RequestLimits Limits { get; init; } = Security.RequestLimits.Default;
+
+    /// <summary>Tile cache bounds and the render queue (--tile-memory-mb, --tile-disk-mb, --render-threads, --render-queue).</summary>
+    public Mosaic.Server.Tiles.TileServingOptions Tiles { get; init; } = Mosaic.Server.Tiles.TileServingOptions.Default;
+
+    /// <summary>Access tokens, private fields and allowed origins (--access-token-file, MOSAIC_ACCESS_TOKEN, --anonymous, --private-fields, --allowed-origins).</summary>
+    public Mosaic.Server.Access.AccessOptions Access { get; init; } = new();
+
     public static MosaicOptions FromConfiguration(IConfiguration configuration)
     {
         var data = configuration["data"];
@@ -35,6 +47,10 @@ public sealed class MosaicOptions
             DemoPreset = configuration["demo-preset"] ?? "default",
             StateDirectory = Path.GetFullPath(state),
             CutoutPixelLimit = CutoutLimit(configuration["cutout-limit"]),
+            Access = Mosaic.Server.Access.AccessOptions.FromConfiguration(configuration),
+            Redis = string.IsNullOrWhiteSpace(configuration["redis"]) ? null : configuration["redis"]!.Trim(),
+            Limits = Security.RequestLimits.FromConfiguration(configuration),
+            Tiles = Mosaic.Server.Tiles.TileServingOptions.FromConfiguration(configuration),
         };
     }
 

@@ -22,5 +22,8 @@ internal sealed class PyramidEntry(FieldHdu hdu)
 
     public Pyramid? Pyramid { get; set; }
 
-    public PyramidStatus Status => new(State, State == PyramidState.Ready ? 1 : Progress, Error);
+    /// <summary>How long this process took to build it; null while queued or building, or when it came from the cache.</summary>
+    public TimeSpan? BuildTime { get; set; }
+
+    public PyramidStatus Status => new(State, State == PyramidState.Ready ? 1 : Progress, Error) { BuildTime = BuildTime };
 }

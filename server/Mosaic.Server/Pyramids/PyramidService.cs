@@ -10,13 +10,23 @@ using Mosaic.Server.Hosting;
 namespace Mosaic.Server.Pyramids;
 
 /// <summary>
-/// Builds the pyramid of every image HDU once, in the background, one at a time, into the cache folder, where a
-/// later start finds it; a band's whole-field canvas is built like any HDU, queued after every chip. The HDUs
-/// someone is looking at go to the front of the queue.
+/// Builds the pyramid of every image HDU once, in the background, into the cache folder, where a later start finds
+/// it; a band's whole-field canvas is built like any HDU, queued after every chip. The HDUs someone is looking at go
+/// to the front of the queue.
+/// <para>Up to <see cref="ConcurrentBuilds"/> builds run at once (two where there are two cores): each build's pass
+/// already uses two threads, but its reads, writes and level cascade leave gaps a second build fills. Memory stays
+/// bounded by that count, not by the data: one build holds two native strips (2^19 floats each, 4 MiB), the level
+/// writers' strips (2^20 floats in all, 4 MiB), about 12 bytes per image column for the cascade's rows and two dense
+/// histograms (8 MiB each); a canvas build adds, per reading thread, one chip rectangle of at most 2^20 floats
+/// (4 MiB). So two builds hold at most about 2 x 32 MiB plus 24 bytes per column of the two widest images.</para>
 /// </summary>
 public sealed class PyramidService : BackgroundService
 {
     private static readonly TimeSpan ProgressLogInterval = TimeSpan.FromSeconds(3);
+
+    /// <summary>Builds run at once: two, or one on a single core.</summary>
+    public static int ConcurrentBuilds { get; } = Math.Clamp(Environment.ProcessorCount, 1, 2);
+
     private readonly ConcurrentDictionary<string, PyramidEntry> _entries = new(StringComparer.Ordinal);
     private readonly ConcurrentDictionary<string, BandSummary> _bandSummaries = new(StringComparer.Ordinal);
     private readonly LinkedList<PyramidEntry> _queue = new();
@@ -163,7 +173,9 @@ public sealed class PyramidService : BackgroundService
     {
         Directory.CreateDirectory(PyramidRoot);
         // Builds are CPU-bound and long: keep them off the request thread pool.
-        await Task.Factory.StartNew(() => BuildLoop(stoppingToken), stoppingToken, TaskCreationOptions.LongRunning, TaskScheduler.Default).Unwrap();
+        var loops = Enumerable.Range(0, ConcurrentBuilds)
+            .Select(_ => Task.Factory.StartNew(() => BuildLoop(stoppingToken), stoppingToken, TaskCreationOptions.LongRunning, TaskScheduler.Default).Unwrap());
+        await Task.WhenAll(loops);
     }
 
     private async Task BuildLoop(CancellationToken stoppingToken)
@@ -212,6 +224,7 @@ public sealed class PyramidService : BackgroundService
             if (Directory.Exists(directory)) Directory.Delete(directory, recursive: true);
             PyramidBuilder.Build(hdu.Plane, directory, BuildOptions(hdu), progress, stoppingToken);
             entry.Pyramid = Pyramid.Open(directory, hdu.Plane);
+            entry.BuildTime = clock.Elapsed;
             entry.State = PyramidState.Ready;
             _logger.LogInformation("Pyramid of {Hdu} ready in {Seconds:F2} s ({Rate:F0} Mpx/s)", hdu.Description, clock.Elapsed.TotalSeconds, megapixels / clock.Elapsed.TotalSeconds);
         }

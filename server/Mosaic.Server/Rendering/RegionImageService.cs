@@ -14,7 +14,8 @@ public sealed class RegionImageService(DisplayCompiler displays, PyramidService 
 {
     public const long MaxPixels = RegionRenderer.MaxPixels;
 
-    public byte[] RenderPng(FieldHdu hdu, PixelBox box, DisplaySettings display)
+    /// <param name="cancellationToken">Checked before each band of rows, so a request timeout stops a long render.</param>
+    public byte[] RenderPng(FieldHdu hdu, PixelBox box, DisplaySettings display, CancellationToken cancellationToken = default)
     {
         if (box.PixelCount > MaxPixels)
             throw new ArgumentOutOfRangeException(nameof(box), box, $"the box holds {box.PixelCount} pixels; at most {MaxPixels} are rendered");
@@ -23,12 +24,16 @@ public sealed class RegionImageService(DisplayCompiler displays, PyramidService 
         // Compiled before reading, so a band still being prepared fails fast without touching the pixels.
         var toneMap = displays.ToneMapFor(hdu.Band, display);
         // Rows on demand, a bounded band at a time: a 50-megapixel box never sits in memory as floats.
-        return RegionRenderer.RenderPng((firstRowFromTop, destination) => NativeBox.ReadRows(pyramids, hdu, box, firstRowFromTop, destination),
+        return RegionRenderer.RenderPng((firstRowFromTop, destination) =>
+            {
+                cancellationToken.ThrowIfCancellationRequested();
+                NativeBox.ReadRows(pyramids, hdu, box, firstRowFromTop, destination);
+            },
             box.Width, box.Height, toneMap, display.Masked);
     }
 
     /// <summary>A colour PNG of the same box of three HDUs on one grid, each band's rows read on demand.</summary>
-    public byte[] RenderCompositePng(CompositeTarget target, PixelBox box, ICompositeSettings composite)
+    public byte[] RenderCompositePng(CompositeTarget target, PixelBox box, ICompositeSettings composite, CancellationToken cancellationToken = default)
     {
         ArgumentNullException.ThrowIfNull(target);
         ArgumentNullException.ThrowIfNull(composite);
@@ -40,6 +45,7 @@ public sealed class RegionImageService(DisplayCompiler displays, PyramidService 
         var map = displays.CompositeFor(target.Bands, composite);
         var readers = target.Hdus.Select(hdu => (RowBandReader)((firstRowFromTop, destination) =>
         {
+            cancellationToken.ThrowIfCancellationRequested();
             for (var offset = 0; offset < destination.Length; offset += box.Width, firstRowFromTop++)
                 hdu.Plane.ReadRow(box.StoredRowFromTop(firstRowFromTop), box.X0 - 1, destination.Slice(offset, box.Width));
         }));

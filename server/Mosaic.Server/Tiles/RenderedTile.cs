@@ -1,3 +1,5 @@
+using Mosaic.TileCache;
+
 namespace Mosaic.Server.Tiles;
 
-public sealed record RenderedTile(byte[] Png, string ETag, bool CacheHit);
+public sealed record RenderedTile(byte[] Png, string ETag, TileSource Source);

@@ -1,3 +1,7 @@
+using System.Buffers;
+using System.Globalization;
+using System.IO.Hashing;
+using System.Text;
 using Mosaic.Imaging.Composite;
 using Mosaic.Imaging.Display;
 using Mosaic.Imaging.Rendering;
@@ -9,39 +13,69 @@ using Mosaic.TileCache;
 
 namespace Mosaic.Server.Tiles;
 
-/// <summary>Turns a tile request into PNG bytes: pyramid, field-wide tone map, encoder, with the cache in front.</summary>
+/// <summary>
+/// Turns a tile request into PNG bytes: pyramid, field-wide tone map, encoder, with the cache tiers in front. A
+/// request is prepared first (checked, keyed) so a client that already holds the tile is answered before any lookup.
+/// </summary>
 public sealed class TileService(PyramidService pyramids, DisplayCompiler displays, TileCacheService cache)
 {
-    public async ValueTask<RenderedTile> GetTileAsync(FieldHdu hdu, int z, int x, int y, DisplaySettings display)
+    /// <summary>Checks the tile and keys it; the pyramid and tone map are fetched only when the tile must be rendered.</summary>
+    public PreparedTile Prepare(FieldHdu hdu, int z, int x, int y, DisplaySettings display)
     {
+        ArgumentNullException.ThrowIfNull(hdu);
+        ArgumentNullException.ThrowIfNull(display);
         CheckTile(hdu, z, x, y);
-
-        var pyramid = pyramids.GetReady(hdu);
-        var toneMap = displays.ToneMapFor(hdu.Band, display);
         var key = $"{hdu.PyramidKey}/{display.CanonicalKey}/{z}/{x}/{y}";
-        var (bytes, hit) = await cache.GetOrCreateAsync(key, () => TileRenderer.RenderPng(pyramid, z, x, y, toneMap));
-        return new RenderedTile(bytes, ETagOf(key), hit);
-    }
-
-    private static string ETagOf(string key)
-    {
-        Span<byte> hash = stackalloc byte[32];
-        System.Security.Cryptography.SHA256.HashData(System.Text.Encoding.UTF8.GetBytes(key), hash);
-        return "\"" + Convert.ToHexStringLower(hash[..12]) + "\"";
+        return new PreparedTile(key, ETagOf(key), () =>
+        {
+            var pyramid = pyramids.GetReady(hdu);
+            return TileRenderer.RenderPng(pyramid, z, x, y, displays.ToneMapFor(hdu.Band, display));
+        });
     }
 
     /// <summary>A colour tile of three bands on one grid; the key carries all three HDUs' pixels and the composite's settings.</summary>
-    public async ValueTask<RenderedTile> GetCompositeTileAsync(CompositeTarget target, int z, int x, int y, ICompositeSettings composite)
+    public PreparedTile PrepareComposite(CompositeTarget target, int z, int x, int y, ICompositeSettings composite)
     {
         ArgumentNullException.ThrowIfNull(target);
         ArgumentNullException.ThrowIfNull(composite);
         CheckTile(target.Hdus.Red, z, x, y);
-        var sources = target.Hdus.Select(pyramids.GetReady);
-        var map = displays.CompositeFor(target.Bands, composite);
         var hdus = target.Hdus;
         var key = $"{hdus.Red.PyramidKey}+{hdus.Green.PyramidKey}+{hdus.Blue.PyramidKey}/{composite.CanonicalKey}/{z}/{x}/{y}";
-        var (bytes, hit) = await cache.GetOrCreateAsync(key, () => CompositeRenderer.RenderTile(sources, z, x, y, map));
-        return new RenderedTile(bytes, ETagOf(key), hit);
+        return new PreparedTile(key, ETagOf(key), () =>
+        {
+            var sources = target.Hdus.Select(pyramids.GetReady);
+            return CompositeRenderer.RenderTile(sources, z, x, y, displays.CompositeFor(target.Bands, composite));
+        });
+    }
+
+    /// <summary>The tile from the nearest tier that has it, else rendered (429 when the render queue is full, 503 while the pyramid is built).</summary>
+    public async ValueTask<RenderedTile> GetAsync(PreparedTile tile, CancellationToken cancellationToken = default)
+    {
+        ArgumentNullException.ThrowIfNull(tile);
+        var lookup = await cache.GetOrCreateAsync(tile.Key, tile.Render, cancellationToken).ConfigureAwait(false);
+        return new RenderedTile(lookup.Bytes, tile.ETag, lookup.Source);
+    }
+
+    public ValueTask<RenderedTile> GetTileAsync(FieldHdu hdu, int z, int x, int y, DisplaySettings display, CancellationToken cancellationToken = default) =>
+        GetAsync(Prepare(hdu, z, x, y, display), cancellationToken);
+
+    public ValueTask<RenderedTile> GetCompositeTileAsync(CompositeTarget target, int z, int x, int y, ICompositeSettings composite, CancellationToken cancellationToken = default) =>
+        GetAsync(PrepareComposite(target, z, x, y, composite), cancellationToken);
+
+    /// <summary>A strong ETag from the key: a fast 128-bit hash (it needs to tell keys apart, not resist forgery), in hex.</summary>
+    private static string ETagOf(string key)
+    {
+        var most = Encoding.UTF8.GetMaxByteCount(key.Length);
+        byte[]? rented = null;
+        var utf8 = most <= 1024 ? stackalloc byte[1024] : (rented = ArrayPool<byte>.Shared.Rent(most));
+        var hash = XxHash128.HashToUInt128(utf8[..Encoding.UTF8.GetBytes(key, utf8)]);
+        if (rented is not null) ArrayPool<byte>.Shared.Return(rented);
+        return string.Create(34, hash, static (tag, h) =>
+        {
+            tag[0] = '"';
+            h.TryFormat(tag[1..33], out _, "x32", CultureInfo.InvariantCulture);
+            tag[33] = '"';
+        });
     }
 
     private static void CheckTile(FieldHdu hdu, int z, int x, int y)

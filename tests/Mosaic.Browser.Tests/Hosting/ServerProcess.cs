@@ -50,11 +50,12 @@ public sealed class ServerProcess : IAsyncDisposable
     /// Starts the server on <paramref name="baseAddress"/> (a free loopback port when null), keeping saved views in
     /// <paramref name="stateDirectory"/> (never the user's own folder in tests).
     /// </summary>
-    public static async Task<ServerProcess> StartAsync(string dataDirectory, string cacheDirectory, string stateDirectory, Uri? baseAddress = null)
+    public static async Task<ServerProcess> StartAsync(string dataDirectory, string cacheDirectory, string stateDirectory, Uri? baseAddress = null,
+        IReadOnlyList<string>? moreArguments = null)
     {
         baseAddress ??= new Uri($"http://127.0.0.1:{FreePort()}/");
-        var start = StartInfo("--data", dataDirectory, "--cache", cacheDirectory, "--state", stateDirectory,
-            "--urls", baseAddress.ToString().TrimEnd('/'));
+        var start = StartInfo(["--data", dataDirectory, "--cache", cacheDirectory, "--state", stateDirectory,
+            "--urls", baseAddress.ToString().TrimEnd('/'), .. moreArguments ?? []]);
         var process = Process.Start(start) ?? throw new InvalidOperationException("could not start dotnet");
         var server = new ServerProcess(process, baseAddress);
         try

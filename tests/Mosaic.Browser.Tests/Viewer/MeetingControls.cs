@@ -101,18 +101,33 @@ public sealed class MeetingControls(ViewerPage viewer)
         return (entry.GetProperty("key").GetString()!, entry.GetProperty("at").GetDouble(), ToMap(entry.GetProperty("state")));
     }
 
-    /// <summary>When this page first applied the state with <paramref name="key"/>; waits up to ten seconds for it.</summary>
-    public async Task<double> AppliedAtAsync(string key, double since = 0) => (await AppliedAsync(key, since)).At;
+    /// <summary>
+    /// The newest state sent after <paramref name="since"/> once the presenter has settled: something was sent, the
+    /// map is not animating, and nothing new was sent for 300 ms. A click's zoom can start after the tiles of the old
+    /// view look complete, so waiting for tiles alone may look too early on a busy machine.
+    /// </summary>
+    public async Task<(string Key, double At, Dictionary<string, string> State)> SettledSentAsync(double since)
+    {
+        await Page.WaitForFunctionAsync("""
+            since => { const log = window.__meetingLog.sent.filter((e) => e.at > since); if (log.length === 0) return false;
+                       if (document.querySelector('.leaflet-zoom-anim, .leaflet-pan-anim')) return false;
+                       return performance.timeOrigin + performance.now() - log[log.length - 1].at > 300; }
+            """, since, new PageWaitForFunctionOptions { Timeout = 20_000, PollingInterval = 20 });
+        return await LastSentAsync(since);
+    }
+
+    /// <summary>When this page first applied the state with <paramref name="key"/>; waits up to ten seconds for it unless told.</summary>
+    public async Task<double> AppliedAtAsync(string key, double since = 0, float timeoutMs = 10_000) => (await AppliedAsync(key, since, timeoutMs)).At;
 
     /// <summary>
     /// When the state with <paramref name="key"/> first arrived here after <paramref name="since"/> and when it was
-    /// applied; waits up to ten seconds.
+    /// applied; waits up to <paramref name="timeoutMs"/> (ten seconds unless told).
     /// </summary>
-    public async Task<(double ReceivedAt, double At)> AppliedAsync(string key, double since = 0)
+    public async Task<(double ReceivedAt, double At)> AppliedAsync(string key, double since = 0, float timeoutMs = 10_000)
     {
         var handle = await Page.WaitForFunctionAsync(
             "([k, since]) => { const e = window.__meetingLog.applied.find((a) => a.key === k && a.receivedAt > since); return e ? [e.receivedAt, e.at] : null; }",
-            new object[] { key, since }, Wait);
+            new object[] { key, since }, new PageWaitForFunctionOptions { Timeout = timeoutMs, PollingInterval = 10 });
         var times = await handle.JsonValueAsync<double[]>();
         return (times[0], times[1]);
     }

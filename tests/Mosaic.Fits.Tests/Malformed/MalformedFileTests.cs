@@ -36,14 +36,14 @@ public sealed class MalformedFileTests : IDisposable
     {
         // Section 3.1: a header is whole 2880-byte blocks.
         var full = ValidBytes().ToArray();
-        Fails(new FitsBytes().Raw(full.AsSpan(0, 1000)), 0, null, "truncated header");
+        Fails(new FitsBytes().Raw(full.AsSpan(0, 1000)), 0, "END", "truncated header");
     }
 
     [Fact]
     public void MissingEnd()
     {
         // Section 4.4.1: the header ends with END.
-        Fails(new FitsBytes().HeaderWithoutEnd(FitsBytes.Primary(8)).PadTo(2880, (byte)' '), 0, null, "no END");
+        Fails(new FitsBytes().HeaderWithoutEnd(FitsBytes.Primary(8)).PadTo(2880, (byte)' '), 0, "END", "no END");
     }
 
     [Fact]
@@ -94,7 +94,7 @@ public sealed class MalformedFileTests : IDisposable
     {
         // Section 4.4.1.1: the data size follows from BITPIX and NAXISn; the file must hold it. No allocation
         // depends on these numbers, so a 40 GB claim costs nothing.
-        var e = Fails(new FitsBytes().Header(FitsBytes.Primary(32, 100_000, 100_000)).Data(new byte[100]), 0, null, "truncated data");
+        var e = Fails(new FitsBytes().Header(FitsBytes.Primary(32, 100_000, 100_000)).Data(new byte[100]), 0, "NAXIS", "truncated data");
         Assert.Contains("40000000000", e.Message);
     }
 
@@ -175,7 +175,7 @@ public sealed class MalformedFileTests : IDisposable
     {
         // 1,001 blocks of COMMENT records and no END: refused after the 1,000-block cap, not read to the end.
         var comments = Enumerable.Repeat("COMMENT filler", 36 * 1001 - 3).ToArray();
-        Fails(new FitsBytes().HeaderWithoutEnd([.. FitsBytes.Primary(8), .. comments]), 0, null, "1000 blocks");
+        Fails(new FitsBytes().HeaderWithoutEnd([.. FitsBytes.Primary(8), .. comments]), 0, "END", "1000 blocks");
     }
 
     [Fact]
@@ -197,7 +197,7 @@ public sealed class MalformedFileTests : IDisposable
     {
         // A following block that does start with XTENSION is an HDU and is held to the standard.
         var bytes = ValidBytes().HeaderWithoutEnd(FitsBytes.Extension("IMAGE", 8, 0, 1, 2, 2)).PadTo(2880, (byte)' ');
-        Fails(bytes, 1, null, "no END");
+        Fails(bytes, 1, "END", "no END");
     }
 
     [Fact]

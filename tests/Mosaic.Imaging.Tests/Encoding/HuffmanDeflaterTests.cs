@@ -9,7 +9,7 @@ namespace Mosaic.Imaging.Tests.Encoding;
 /// </summary>
 public sealed class HuffmanDeflaterTests
 {
-    public static TheoryData<string> Kinds() => ["one value", "two values", "all values", "fibonacci", "noise", "large noise"];
+    public static TheoryData<string> Kinds() => ["one value", "two values", "all values", "fibonacci", "noise", "large noise", "rare values", "rgb tile"];
 
     [Theory]
     [MemberData(nameof(Kinds))]
@@ -65,6 +65,17 @@ public sealed class HuffmanDeflaterTests
                 return (shuffled.ToArray(), width, shuffled.Count / width);
             case "noise":
                 return (PngEncoderTests.NoisyLevels(256 * 256, 1, seed: 12), 256, 256);
+            case "rare values":
+                // Past 32 KiB a block's code is fitted to a sample of it: values seen once each, almost surely outside
+                // the sample, must still have a code.
+                var rare = PngEncoderTests.NoisyLevels(512 * 256, 1, seed: 14);
+                for (var k = 0; k < 10; k++) rare[rng.Next(rare.Length)] = (byte)(k < 5 ? k : 250 + k);
+                return (rare, 512, 256);
+            case "rgb tile":
+                // A colour tile's bytes as one gray image 768 wide: three channels of different levels interleaved.
+                var rgb = PngEncoderTests.NoisyLevels(3 * 256 * 256, 1, seed: 15);
+                for (var k = 0; k < rgb.Length; k += 3) { rgb[k + 1] = (byte)(rgb[k + 1] / 2); rgb[k + 2] = (byte)(255 - rgb[k + 2]); }
+                return (rgb, 768, 256);
             default:
                 return (PngEncoderTests.NoisyLevels(1200 * 900, 1, seed: 13), 1200, 900); // many blocks
         }

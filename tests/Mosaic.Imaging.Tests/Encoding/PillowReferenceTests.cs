@@ -39,4 +39,28 @@ public sealed class PillowReferenceTests
         Assert.Equal([width, height], la.GetProperty("size").EnumerateArray().Select(e => e.GetInt32()));
         Assert.Equal(Convert.ToHexStringLower(grayAlpha), la.GetProperty("pixels").GetString());
     }
+
+    [Fact]
+    public void Pillow_reads_a_colour_tile_as_RGB_with_the_same_pixels()
+    {
+        // 256 x 256 RGB (196 KiB of rows: its code comes from a sample), three channels at different levels and a
+        // few values that occur once each.
+        const int width = 256, height = 256;
+        var rgb = PngEncoderTests.NoisyLevels(3 * width * height, 1, seed: 6);
+        for (var k = 0; k < rgb.Length; k += 3) { rgb[k + 1] = (byte)(rgb[k + 1] / 2 + 20); rgb[k + 2] = (byte)(255 - rgb[k + 2]); }
+        var rng = new Random(6);
+        for (var k = 0; k < 12; k++) rgb[rng.Next(rgb.Length)] = (byte)(k < 6 ? k : 240 + k);
+        using var folder = new TemporaryFolder();
+        File.WriteAllBytes(folder.File("rgb.png"), PngEncoder.EncodeRgb(rgb, width, height));
+        OutsideReference.Run("""
+            im = Image.open("rgb.png"); im.verify()
+            im = Image.open("rgb.png"); im.load()
+            json.dump({"mode": im.mode, "size": list(im.size), "pixels": im.tobytes().hex()}, open("seen.json", "w"))
+            """, folder.Path);
+        using var seen = System.Text.Json.JsonDocument.Parse(File.ReadAllText(folder.File("seen.json")));
+        // Pillow's "RGB" mode: 3 bytes a pixel, r, g, b, row-major from the top.
+        Assert.Equal("RGB", seen.RootElement.GetProperty("mode").GetString());
+        Assert.Equal([width, height], seen.RootElement.GetProperty("size").EnumerateArray().Select(e => e.GetInt32()));
+        Assert.Equal(Convert.ToHexStringLower(rgb), seen.RootElement.GetProperty("pixels").GetString());
+    }
 }
