@@ -190,15 +190,42 @@ public sealed class PyramidService : BackgroundService
             {
                 return;
             }
-            PyramidEntry? entry;
+            PyramidEntry? entry = null;
+            var waiting = false;
             lock (_queueGate)
             {
-                entry = _queue.First?.Value;
-                if (entry is not null) _queue.RemoveFirst();
+                for (var node = _queue.First; node is not null; node = node.Next)
+                {
+                    if (ChipsPending(node.Value.Hdu)) { waiting = true; continue; }
+                    entry = node.Value;
+                    _queue.Remove(node);
+                    break;
+                }
             }
             if (entry is not null) Build(entry, stoppingToken);
+            else if (waiting)
+            {
+                // Only canvases whose chips the other build is still making: keep the work counted, look again soon.
+                _work.Release();
+                try
+                {
+                    await Task.Delay(CanvasWaitInterval, stoppingToken);
+                }
+                catch (OperationCanceledException)
+                {
+                    return;
+                }
+            }
         }
     }
+
+    private static readonly TimeSpan CanvasWaitInterval = TimeSpan.FromMilliseconds(50);
+
+    // A canvas starts once its band's chips are built, as it was queued: with two builds at once the other may still
+    // be making the last chip, whose field-wide limits the canvas's tiles need. Taking the next entry meanwhile
+    // (never waiting on a canvas while holding a build) keeps both builds busy and can never deadlock.
+    private bool ChipsPending(FieldHdu hdu) => hdu.IsCanvas && hdu.Band.Hdus.Any(chip =>
+        _entries.TryGetValue(chip.PyramidKey, out var e) && e.State is PyramidState.Queued or PyramidState.Building);
 
     private void Build(PyramidEntry entry, CancellationToken stoppingToken)
     {

@@ -1,11 +1,10 @@
 using Microsoft.AspNetCore.Hosting;
-using Microsoft.AspNetCore.Http.Connections;
 using Microsoft.AspNetCore.Mvc.Testing;
 using Microsoft.AspNetCore.SignalR.Client;
 using Microsoft.AspNetCore.TestHost;
 using Microsoft.Extensions.DependencyInjection;
 using Microsoft.Extensions.Logging;
-using Mosaic.Server.Meetings;
+using Mosaic.Server.Tests.Meetings;
 
 namespace Mosaic.Server.Tests.Access;
 
@@ -45,27 +44,9 @@ public sealed class AccessFactory(AccessFixture fixture, IReadOnlyDictionary<str
     }
 
     /// <summary>A hub connection over WebSockets, sending the given Origin and bearer token (either may be null).</summary>
-    public async Task<HubConnection> ConnectAsync(string? origin, string? token)
+    public Task<HubConnection> ConnectAsync(string? origin, string? token) => TestHubConnections.ConnectAsync(Server, request =>
     {
-        var server = Server;
-        var connection = new HubConnectionBuilder()
-            .WithUrl(new Uri(server.BaseAddress, MeetingHub.Path.TrimStart('/')), options =>
-            {
-                options.Transports = HttpTransportType.WebSockets;
-                options.SkipNegotiation = true;
-                options.WebSocketFactory = async (context, cancel) =>
-                {
-                    var client = server.CreateWebSocketClient();
-                    client.ConfigureRequest = request =>
-                    {
-                        if (origin is not null) request.Headers.Origin = origin;
-                        if (token is not null) request.Headers.Authorization = $"Bearer {token}";
-                    };
-                    return await client.ConnectAsync(context.Uri, cancel);
-                };
-            })
-            .Build();
-        await connection.StartAsync();
-        return connection;
-    }
+        if (origin is not null) request.Headers.Origin = origin;
+        if (token is not null) request.Headers.Authorization = $"Bearer {token}";
+    });
 }

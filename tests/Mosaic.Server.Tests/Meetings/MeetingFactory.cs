@@ -1,5 +1,4 @@
 using Microsoft.AspNetCore.Hosting;
-using Microsoft.AspNetCore.Http.Connections;
 using Microsoft.AspNetCore.Mvc.Testing;
 using Microsoft.AspNetCore.SignalR.Client;
 using Microsoft.AspNetCore.TestHost;
@@ -24,18 +23,5 @@ public sealed class MeetingFactory(string dataDirectory, string cacheDirectory, 
     }
 
     /// <summary>A started hub connection over WebSockets through the test server.</summary>
-    public async Task<HubConnection> ConnectAsync()
-    {
-        var server = Server;
-        var connection = new HubConnectionBuilder()
-            .WithUrl(new Uri(server.BaseAddress, MeetingHub.Path.TrimStart('/')), options =>
-            {
-                options.Transports = HttpTransportType.WebSockets;
-                options.SkipNegotiation = true;
-                options.WebSocketFactory = async (context, cancel) => await server.CreateWebSocketClient().ConnectAsync(context.Uri, cancel);
-            })
-            .Build();
-        await connection.StartAsync();
-        return connection;
-    }
+    public Task<HubConnection> ConnectAsync() => TestHubConnections.ConnectAsync(Server);
 }

@@ -1,11 +1,11 @@
 using Microsoft.AspNetCore.Hosting;
-using Microsoft.AspNetCore.Http.Connections;
 using Microsoft.AspNetCore.Mvc.Testing;
 using Microsoft.AspNetCore.SignalR.Client;
 using Microsoft.AspNetCore.TestHost;
 using Microsoft.Extensions.DependencyInjection;
 using Mosaic.Server.Meetings;
 using Mosaic.Server.Redis;
+using Mosaic.Server.Tests.Meetings;
 
 namespace Mosaic.Server.Tests.Redis;
 
@@ -28,18 +28,5 @@ public sealed class RedisInstanceFactory(string dataDirectory, string cacheDirec
     }
 
     /// <summary>A started hub connection over WebSockets to this instance.</summary>
-    public async Task<HubConnection> ConnectAsync()
-    {
-        var server = Server;
-        var connection = new HubConnectionBuilder()
-            .WithUrl(new Uri(server.BaseAddress, MeetingHub.Path.TrimStart('/')), options =>
-            {
-                options.Transports = HttpTransportType.WebSockets;
-                options.SkipNegotiation = true;
-                options.WebSocketFactory = async (context, cancel) => await server.CreateWebSocketClient().ConnectAsync(context.Uri, cancel);
-            })
-            .Build();
-        await connection.StartAsync();
-        return connection;
-    }
+    public Task<HubConnection> ConnectAsync() => TestHubConnections.ConnectAsync(Server);
 }
