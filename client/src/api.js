@@ -1,5 +1,6 @@
 // The server's HTTP API. Paths are relative to the page so the app also works behind a proxy under a sub-path.
 import { ApiError } from './api-error.js';
+import { takeStarted } from './boot.js';
 import { displayParameters } from './display-query.js';
 import { colourParameters } from './colour-query.js';
 
@@ -39,8 +40,12 @@ function compositeQuery(hdu, display, colour, masked) {
   return query;
 }
 
+// The answer boot.js asked for early is used where the caller cannot cancel, else (or if it failed) a new request.
 async function getJson(path, signal) {
-  const response = await fetch(path, { signal, headers: { Accept: 'application/json' } });
+  const early = signal === undefined ? takeStarted(path) : null;
+  const answer = early === null ? null : await early.catch(() => null);
+  if (answer !== null && answer.response.ok) return answer.body;
+  const response = answer?.response ?? await fetch(path, { signal, headers: { Accept: 'application/json' } });
   if (!response.ok) throw await ApiError.fromResponse(response);
   return response.json();
 }

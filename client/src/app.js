@@ -138,12 +138,12 @@ function compareLayers(candidate, colour, layout, channels) {
   return { first, second };
 }
 
-function layerUrl(token, hduIndex) {
+function layerUrl(token, hduIndex, onField = field) {
   const { display, colour } = state.current;
   if (token === COMPOSITE_LAYER) {
-    return compositeTileUrlTemplate({ field: field.id, hdu: hduIndex }, display, { ...colour, ...channelsOf(field, colour) });
+    return compositeTileUrlTemplate({ field: onField.id, hdu: hduIndex }, display, { ...colour, ...channelsOf(onField, colour) });
   }
-  return tileUrlTemplate({ field: field.id, band: token, hdu: hduIndex }, display);
+  return tileUrlTemplate({ field: onField.id, band: token, hdu: hduIndex }, display);
 }
 
 function layerLabel(token) {
@@ -281,8 +281,8 @@ function goTo(answer) {
 }
 
 /** The same HDU index in another band, or null when that band has none. */
-function hduOf(bandName, index) {
-  const band = field.bands.find((b) => b.name === bandName);
+function hduOf(bandName, index, onField = field) {
+  const band = onField.bands.find((b) => b.name === bandName);
   if (band === undefined) return null;
   return isWholeField(index) ? wholeFieldEntry(band) : band.hdus.find((h) => h.index === index) ?? null;
 }
@@ -337,8 +337,7 @@ function render(view = null) {
   const wholeField = isWholeField(shown.hdu);
   const geometry = `${shown.hdu}:${hdu.width}x${hdu.height}x${hdu.maxZoom}`;
   if (shownGeometry !== geometry || start !== null) {
-    const maskShapes = wholeField ? hdu.chips.map((chip) => chip.outline) : null;
-    imageView.show({ tileUrl: baseUrl, width: hdu.width, height: hdu.height, maxZoom: hdu.maxZoom, maskShapes }, start);
+    imageView.show(imageSpec(baseUrl, hdu, wholeField), start);
     shownGeometry = geometry;
   } else {
     imageView.restyle(baseUrl);
@@ -357,6 +356,37 @@ function render(view = null) {
     channels: base === COMPOSITE_LAYER ? CHANNELS.map((channel) => ({ channel, band: channels[channel] })) : undefined,
   });
   resolveComposite();
+}
+
+// What the image view needs to show one HDU: on the whole field the masked colour stays inside the chips.
+function imageSpec(tileUrl, hdu, wholeField) {
+  const maskShapes = wholeField ? hdu.chips.map((chip) => chip.outline) : null;
+  return { tileUrl, width: hdu.width, height: hdu.height, maxZoom: hdu.maxZoom, maskShapes };
+}
+
+// The picture open() will show, put up first so that its tiles are asked for before the pickers, panels and
+// overlays are filled in; open() then finds it on screen and keeps it. One image only: panes and comparisons wait.
+function showFirstImage(candidate, wanted, view) {
+  if (['panes', 'swipe', 'blink'].includes(wanted.layout.view)) return false;
+  const source = landingSource(candidate, wanted);
+  const hdu = source === null ? null : hduOf(source.band, source.hdu, candidate);
+  if (hdu === null) return false;
+  const token = wanted.colour.rgb !== null ? COMPOSITE_LAYER : source.band;
+  imageView.showEarly(imageSpec(layerUrl(token, source.hdu, candidate), hdu, isWholeField(source.hdu)), view);
+  return true;
+}
+
+// A task boundary, so the browser sends the image requests made so far before the next script runs (a message, not
+// a timer: timers are slowed down in a tab opened in the background).
+function nextTask() {
+  const channel = new MessageChannel();
+  return new Promise((resolve) => {
+    channel.port1.onmessage = () => {
+      channel.port1.close();
+      resolve();
+    };
+    channel.port2.postMessage(null);
+  });
 }
 
 // The server's resolved composite for the settings now in use, kept for the colour controls.
@@ -664,6 +694,7 @@ async function start() {
     : null;
   if (chosen !== null && opening.sky !== null && wanted.z !== null) view = await skyLinkView(chosen, wanted, opening.sky);
   chosen ??= readable[0];
+  if (showFirstImage(chosen, wanted, view)) await nextTask();
   open(chosen, { band: wanted.band, hdu: wanted.hdu, view });
   meeting.start();
 }

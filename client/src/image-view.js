@@ -47,6 +47,9 @@ export class ImageView extends EventTarget {
   #markerElement = null;
   // Set while the view is moved to follow another, so that it does not report the move back.
   #following = false;
+  // Set while showEarly() puts the first picture up; the view it lands on is reported by the next show().
+  #early = false;
+  #viewOwed = false;
 
   constructor(container) {
     super();
@@ -63,8 +66,14 @@ export class ImageView extends EventTarget {
       this.#setKeyboardProbe(false);
       this.#setPointer(this.#map.mouseEventToContainerPoint(event));
     });
-    // The display panel opening or closing resizes the view without resizing the window.
-    new ResizeObserver(() => this.#map?.invalidateSize({ pan: false })).observe(container);
+    // The display panel opening or closing resizes the view without resizing the window. Only a real change of size
+    // is passed on: Leaflet's invalidateSize forgets the exact centre (it is then read back to whole screen pixels),
+    // and the observer's first report can come after the first picture is up.
+    new ResizeObserver(() => {
+      const size = this.#map?.getSize();
+      if (size === undefined || (size.x === container.clientWidth && size.y === container.clientHeight)) return;
+      this.#map.invalidateSize({ pan: false });
+    }).observe(container);
   }
 
   /**
@@ -190,6 +199,27 @@ export class ImageView extends EventTarget {
     } else if (!keep) {
       this.fitImage(false);
     }
+    if (this.#viewOwed && !this.#early) this.#reportView();
+  }
+
+  #reportView() {
+    this.#viewOwed = false;
+    this.dispatchEvent(new CustomEvent('viewchange', { detail: this.view }));
+  }
+
+  /**
+   * The first picture, shown before the rest of the page is ready so that its tiles are asked for at once: as
+   * show(), but firing no `viewchange` or `moving`; the view it lands on is reported by the next show(), which finds
+   * the same picture on screen and keeps it.
+   */
+  showEarly(spec, view = null) {
+    this.#early = true;
+    try {
+      this.show(spec, view);
+    } finally {
+      this.#early = false;
+    }
+    this.#viewOwed = this.#map !== null;
   }
 
   /** Requests every tile again: after the pyramid of the shown HDU became ready. */
@@ -301,7 +331,10 @@ export class ImageView extends EventTarget {
     for (const layer of this.#overlays) layer.addTo(map);
 
     map.on('zoomend', () => this.#markPastNative());
-    map.on('moveend', () => this.dispatchEvent(new CustomEvent('viewchange', { detail: this.view })));
+    map.on('moveend', () => {
+      if (this.#early) return;
+      this.#reportView();
+    });
     map.on('mouseout', () => {
       if (!this.#keyboardProbe) this.#setPointer(null);
     });
@@ -318,7 +351,7 @@ export class ImageView extends EventTarget {
     // The map moving under a still pointer (wheel, keys, buttons) changes the pixel under it too.
     map.on('move', () => {
       if (this.#pointer !== null) this.#emitPointer();
-      if (!this.#following) this.dispatchEvent(new CustomEvent('moving', { detail: this.view }));
+      if (!this.#following && !this.#early) this.dispatchEvent(new CustomEvent('moving', { detail: this.view }));
     });
   }
 

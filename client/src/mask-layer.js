@@ -29,15 +29,27 @@ function insetShapes(shapes) {
   return shapes === null ? null : shapes.filter((outline) => outline.length >= 3).map((outline) => insetOutline(outline, SHAPE_INSET));
 }
 
-// The outlines ([[x, y], ...] in FITS pixels) as one SVG path in the level pixels of tile (x, y, z), counted from
-// the tile's top-left corner: the image's top-left corner (0.5, height + 0.5) is level pixel (0, 0).
-function shapesPath(shapes, { width, height, maxZoom }, { x, y, z }) {
+// Each outline ([[x, y], ...] in FITS pixels) as an SVG path in the level pixels of zoom z, counted from the image's
+// top-left corner (0.5, height + 0.5) = level pixel (0, 0), with its bounding box there. Made once per zoom: a tile
+// takes the outlines that reach it, moved to its own top-left corner by a whole number of pixels.
+function levelPaths(shapes, { height, maxZoom }, z) {
   const factor = 2 ** (maxZoom - z);
-  const u = (fx) => (fx - 0.5) / factor - x * TILE_SIZE;
-  const v = (fy) => (height + 0.5 - fy) / factor - y * TILE_SIZE;
-  return shapes
-    .filter((outline) => outline.length >= 3)
-    .map((outline) => `M${outline.map(([fx, fy]) => `${u(fx).toFixed(2)} ${v(fy).toFixed(2)}`).join('L')}Z`)
+  return shapes.filter((outline) => outline.length >= 3).map((outline) => {
+    const us = outline.map(([fx]) => (fx - 0.5) / factor);
+    const vs = outline.map(([, fy]) => (height + 0.5 - fy) / factor);
+    return {
+      u0: Math.min(...us), u1: Math.max(...us), v0: Math.min(...vs), v1: Math.max(...vs),
+      d: `M${us.map((u, i) => `${u.toFixed(2)} ${vs[i].toFixed(2)}`).join('L')}Z`,
+    };
+  });
+}
+
+// The outlines reaching tile (x, y): a pixel of margin, as one that only grazes its edge might still tint it.
+function tilePath(paths, { x, y }) {
+  const [left, top] = [x * TILE_SIZE, y * TILE_SIZE];
+  return paths
+    .filter((p) => p.u1 >= left - 1 && p.u0 <= left + TILE_SIZE + 1 && p.v1 >= top - 1 && p.v0 <= top + TILE_SIZE + 1)
+    .map((p) => p.d)
     .join('');
 }
 
@@ -46,6 +58,7 @@ export const MaskLayer = GridLayer.extend({
   initialize(imageLayer, options) {
     GridLayer.prototype.initialize.call(this, options);
     this._insetShapes = insetShapes(options.shapes ?? null);
+    this._paths = new Map();
     this._imageLayer = imageLayer;
     this._loaded = new Set();
     this._blocks = new Map();
@@ -81,6 +94,7 @@ export const MaskLayer = GridLayer.extend({
   setShapes(shapes) {
     this.options.shapes = shapes;
     this._insetShapes = insetShapes(shapes);
+    this._paths = new Map();
     for (const { coords } of Object.values(this._tiles ?? {})) {
       const block = this._blocks.get(key(coords));
       if (block) this._shape(block, coords);
@@ -95,8 +109,10 @@ export const MaskLayer = GridLayer.extend({
     const svg = document.createElementNS(SVG_NS, 'svg');
     svg.setAttribute('width', String(TILE_SIZE));
     svg.setAttribute('height', String(TILE_SIZE));
+    if (!this._paths.has(coords.z)) this._paths.set(coords.z, levelPaths(shapes, this.options.geometry, coords.z));
     const path = document.createElementNS(SVG_NS, 'path');
-    path.setAttribute('d', shapesPath(shapes, this.options.geometry, coords));
+    path.setAttribute('d', tilePath(this._paths.get(coords.z), coords));
+    path.setAttribute('transform', `translate(${-coords.x * TILE_SIZE} ${-coords.y * TILE_SIZE})`);
     svg.append(path);
     block.append(svg);
   },

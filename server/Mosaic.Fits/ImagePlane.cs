@@ -56,6 +56,29 @@ public abstract class ImagePlane
         ReadRowsCore(y, rowCount, destination[..(int)needed]);
     }
 
+    /// <summary>
+    /// Columns [x, x + width) of rowCount rows into destination (rowCount * width floats, row after row): rows y,
+    /// y + 1, … where rowStep is 1, or y, y - 1, … (the top row of a display first) where it is -1. One call for a
+    /// tile's rows, so a plane can read them without a per-row round of checks.
+    /// </summary>
+    public void ReadBlock(int x, int y, int width, int rowCount, int rowStep, Span<float> destination)
+    {
+        ArgumentOutOfRangeException.ThrowIfNegative(x);
+        ArgumentOutOfRangeException.ThrowIfNegative(width);
+        ArgumentOutOfRangeException.ThrowIfNegative(rowCount);
+        if ((long)x + width > Width)
+            throw new ArgumentOutOfRangeException(nameof(width), width, $"columns [{x}, {(long)x + width}) run past the row width {Width}.");
+        if (rowStep is not (1 or -1)) throw new ArgumentOutOfRangeException(nameof(rowStep), rowStep, "rowStep must be 1 or -1.");
+        var needed = (long)rowCount * width;
+        if (destination.Length < needed)
+            throw new ArgumentOutOfRangeException(nameof(destination), destination.Length, $"{rowCount} rows of {width} need {needed} floats.");
+        if (needed == 0) return;
+        var last = y + (long)(rowCount - 1) * rowStep;
+        if (y < 0 || y >= Height || last < 0 || last >= Height)
+            throw new ArgumentOutOfRangeException(nameof(y), y, $"rows {y} to {last} run outside the height {Height}.");
+        ReadBlockCore(x, y, width, rowCount, rowStep, destination[..(int)needed]);
+    }
+
     /// <summary>One physical value in double precision (for BITPIX 32, 64, -64 a float would round); NaN where masked.</summary>
     public double ReadValue(int x, int y)
     {
@@ -71,6 +94,15 @@ public abstract class ImagePlane
 
     /// <summary>Called with rowCount ≥ 1, rows inside the plane and destination exactly rowCount * Width long.</summary>
     protected abstract void ReadRowsCore(int y, int rowCount, Span<float> destination);
+
+    /// <summary>
+    /// Called with every row inside the plane, width ≥ 1, x + width ≤ Width and destination exactly rowCount * width
+    /// long. Row by row through <see cref="ReadRowCore"/> unless a plane has something cheaper.
+    /// </summary>
+    protected virtual void ReadBlockCore(int x, int y, int width, int rowCount, int rowStep, Span<float> destination)
+    {
+        for (var j = 0; j < rowCount; j++) ReadRowCore(y + j * rowStep, x, destination.Slice(j * width, width));
+    }
 
     /// <summary>Called with (x, y) inside the plane.</summary>
     protected abstract double ReadValueCore(int x, int y);

@@ -8,6 +8,7 @@ if (args is ["ingest", .. var ingestArgs])
 var builder = WebApplication.CreateBuilder(args);
 builder.UseServingDefaults();
 var options = MosaicOptions.FromConfiguration(builder.Configuration);
+builder.UseHeapLimit(options);
 if (string.IsNullOrEmpty(builder.Configuration["urls"]))
     builder.WebHost.UseUrls("http://127.0.0.1:5000"); // loopback unless told otherwise
 builder.Services.AddMosaic(options);

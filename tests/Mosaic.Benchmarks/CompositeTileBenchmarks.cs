@@ -182,6 +182,54 @@ public class CompositeTileBenchmarks
         return CompositeRenderer.RenderTile(new Channels<Pyramid>(_pyramids[0], _pyramids[1], _pyramids[2]), _pyramids[0].Geometry.MaxZoom, x, y, _pyramidLupton!).Length;
     }
 
+    [Benchmark(Description = "one native tile read only")]
+    public float OneNativeRead()
+    {
+        var (x, y) = NextPosition();
+        _pyramids[0].ReadTile(_pyramids[0].Geometry.MaxZoom, x, y, _read[0]);
+        return _read[0][0];
+    }
+
+    // The native read before block reads, kept beside it in the same run: one ImagePlane.ReadRow per tile row.
+    [Benchmark(Description = "gray tile, native level, row-by-row read (before)")]
+    public int GrayNativeRowByRow()
+    {
+        var (x, y) = NextPosition();
+        ReadRowByRow(0, x, y);
+        return TileRenderer.RenderPng(_read[0], _pyramidGray!).Length;
+    }
+
+    [Benchmark(Description = "lupton tile, native level, row-by-row reads (before)")]
+    public int LuptonNativeRowByRow()
+    {
+        var (x, y) = NextPosition();
+        for (var c = 0; c < 3; c++) ReadRowByRow(c, x, y);
+        return CompositeRenderer.RenderPng(_read[0], _read[1], _read[2], 256, 256, _pyramidLupton!, _pyramidLupton!.Masked).Length;
+    }
+
+    [Benchmark(Description = "one native tile read only, row by row (before)")]
+    public float OneNativeReadRowByRow()
+    {
+        var (x, y) = NextPosition();
+        ReadRowByRow(0, x, y);
+        return _read[0][0];
+    }
+
+    [Benchmark(Description = "three native tile reads only, row by row (before)")]
+    public float ThreeNativeReadsRowByRow()
+    {
+        var (x, y) = NextPosition();
+        for (var c = 0; c < 3; c++) ReadRowByRow(c, x, y);
+        return _read[0][0] + _read[1][0] + _read[2][0];
+    }
+
+    /// <summary>Tile (x, y) of the native level, top row first, as Pyramid read it before: the frames are 2048 x 2048, so no edge.</summary>
+    private void ReadRowByRow(int band, int x, int y)
+    {
+        var plane = _files[band].Hdus[0].Image!;
+        for (var r = 0; r < 256; r++) plane.ReadRow(Side - 1 - (y * 256 + r), x * 256, _read[band].AsSpan(r * 256, 256));
+    }
+
     [Benchmark(Description = "three native tile reads only")]
     public float ThreeNativeReads()
     {

@@ -56,12 +56,16 @@ public sealed class TileCacheServiceTests : IDisposable
         var shared = new InProcessSharedTier();
         using (var memory = new MemoryTileStore(new MemoryTileStoreOptions()))
         {
-            var first = await new TileCacheService(memory, disk, shared).GetOrCreateAsync("t", () => [1, 2, 3]);
+            var service = new TileCacheService(memory, disk, shared);
+            var first = await service.GetOrCreateAsync("t", () => [1, 2, 3]);
             Assert.Equal(TileSource.Rendered, first.Source);
             Assert.False(first.Hit);
             Assert.True(memory.TryGet("t", out _));
-            Assert.Equal([1, 2, 3], await disk.GetAsync("t"));
             Assert.True(shared.Holds("t"));
+            // The disk takes a tile on its second ask only.
+            Assert.Null(await disk.GetAsync("t"));
+            Assert.Equal(TileSource.Memory, (await service.GetOrCreateAsync("t", () => [0])).Source);
+            Assert.Equal([1, 2, 3], await disk.GetAsync("t"));
         }
 
         // A restart: memory is empty, the disk still holds the tile and fills memory again.
@@ -73,6 +77,55 @@ public sealed class TileCacheServiceTests : IDisposable
             Assert.Equal([1, 2, 3], lookup.Bytes);
             Assert.True(memory.TryGet("t", out _));
             Assert.Equal(0, shared.Gets - 1); // the disk answered before the shared tier was asked (one get from the first render)
+        }
+    }
+
+    [Fact]
+    public async Task A_tile_asked_for_once_stays_off_the_disk_and_one_rendered_again_goes_on_it()
+    {
+        var disk = await OpenDiskAsync();
+        var renders = 0;
+        byte[] Render(byte value)
+        {
+            renders++;
+            return [value];
+        }
+
+        // Tiles of a new display, each asked once: none is written.
+        using (var memory = new MemoryTileStore(new MemoryTileStoreOptions()))
+        {
+            var service = new TileCacheService(memory, disk);
+            for (byte i = 0; i < 50; i++) await service.GetOrCreateAsync($"once/{i}", () => Render(i));
+            Assert.Equal(50, renders);
+            Assert.Equal(0, disk.Count);
+            Assert.Empty(Directory.EnumerateFiles(_folder.Path, "*.tile", SearchOption.AllDirectories));
+        }
+
+        // Memory lost the tile before its second ask (a memory tier that keeps nothing, as a full one evicting at
+        // once): it is rendered again, and this time kept on disk.
+        {
+            var service = new TileCacheService(new KeepsNothing(), disk);
+            await service.GetOrCreateAsync("again", () => Render(1));
+            Assert.Null(await disk.GetAsync("again"));
+            var second = await service.GetOrCreateAsync("again", () => Render(2));
+            Assert.Equal(TileSource.Rendered, second.Source);
+            Assert.Equal([2], await disk.GetAsync("again"));
+            Assert.Equal(1, disk.Count);
+            Assert.Equal(TileSource.Disk, (await service.GetOrCreateAsync("again", () => Render(3))).Source);
+            Assert.Equal(52, renders);
+        }
+    }
+
+    private sealed class KeepsNothing : ITileStore
+    {
+        public bool TryGet(string key, out byte[] bytes)
+        {
+            bytes = [];
+            return false;
+        }
+
+        public void Set(string key, byte[] bytes)
+        {
         }
     }
 

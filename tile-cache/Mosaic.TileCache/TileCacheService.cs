@@ -1,3 +1,5 @@
+using System.IO.Hashing;
+using System.Runtime.InteropServices;
 using Microsoft.Extensions.Logging;
 using Microsoft.Extensions.Logging.Abstractions;
 using Mosaic.TileCache.Disk;
@@ -8,10 +10,18 @@ namespace Mosaic.TileCache;
 /// <summary>
 /// Looks a tile up tier by tier (memory, disk, the shared tier when there is one) and renders it only when none has
 /// it, once however many ask at the same moment and within the render queue's bound. A tier that answers fills the
-/// tiers above it; a render fills them all. Memory hits answer at once and never wait behind renders.
+/// tiers above it; a render fills memory and the shared tier. The disk tier takes a tile only once it is asked for
+/// a second time (a memory hit, or a render of a key rendered before): most tiles of a new display are asked once,
+/// and a file created, written, renamed and later evicted for each is wasted on them. Memory hits answer at once
+/// (the one that takes a tile to disk first writes it) and never wait behind renders.
 /// </summary>
 public sealed class TileCacheService
 {
+    // Keys rendered but not yet on disk, as 64-bit hashes in a fixed table (a collision only forgets a key, which
+    // then reaches the disk at its next render instead): 2^14 slots, 128 KiB.
+    private const int AskedOnceSlots = 1 << 14;
+    private readonly ulong[] _askedOnce = new ulong[AskedOnceSlots];
+
     private readonly ITileStore _memory;
     private readonly DiskTileStore? _disk;
     private readonly ISharedTileTier? _shared;
@@ -39,7 +49,11 @@ public sealed class TileCacheService
     {
         ArgumentNullException.ThrowIfNull(key);
         ArgumentNullException.ThrowIfNull(render);
-        if (_memory.TryGet(key, out var cached)) return ValueTask.FromResult(new TileLookup(cached, TileSource.Memory));
+        if (_memory.TryGet(key, out var cached))
+        {
+            if (_disk is not null && TakeAskedOnce(key)) KeepOnDisk(key, cached);
+            return ValueTask.FromResult(new TileLookup(cached, TileSource.Memory));
+        }
         var flight = _singleFlight.RunAsync(key, () => Task.Run(() => LookUpOrRenderAsync(key, render)));
         return new ValueTask<TileLookup>(cancellationToken.CanBeCanceled ? flight.WaitAsync(cancellationToken) : flight);
     }
@@ -62,9 +76,37 @@ public sealed class TileCacheService
         var rendered = await _queue.RunAsync(render).ConfigureAwait(false);
         // Memory first: from here on new requests for the key hit it without waiting for the slower tiers.
         _memory.Set(key, rendered);
-        if (_disk is not null) await _disk.SetAsync(key, rendered).ConfigureAwait(false);
+        if (_disk is not null && RememberAskedOnce(key)) await _disk.SetAsync(key, rendered).ConfigureAwait(false);
         await SetSharedAsync(key, rendered).ConfigureAwait(false);
         return new TileLookup(rendered, TileSource.Rendered);
+    }
+
+    /// <summary>True when the key was asked for once before (rendered, not yet on disk); else remembers it and returns false.</summary>
+    private bool RememberAskedOnce(string key)
+    {
+        var hash = HashOf(key);
+        ref var slot = ref _askedOnce[(int)(hash & (AskedOnceSlots - 1))];
+        if (Interlocked.CompareExchange(ref slot, 0, hash) == hash) return true;
+        Volatile.Write(ref slot, hash);
+        return false;
+    }
+
+    /// <summary>True, once, for a key remembered by <see cref="RememberAskedOnce"/>: it is being asked for again.</summary>
+    private bool TakeAskedOnce(string key)
+    {
+        var hash = HashOf(key);
+        ref var slot = ref _askedOnce[(int)(hash & (AskedOnceSlots - 1))];
+        return Volatile.Read(ref slot) == hash && Interlocked.CompareExchange(ref slot, 0, hash) == hash;
+    }
+
+    // Never 0, which marks an empty slot.
+    private static ulong HashOf(string key) => XxHash3.HashToUInt64(MemoryMarshal.AsBytes(key.AsSpan())) | 1;
+
+    // The disk store writes synchronously and reports its own errors; this runs once per tile, on its second ask.
+    private void KeepOnDisk(string key, byte[] tile)
+    {
+        var write = _disk!.SetAsync(key, tile);
+        if (!write.IsCompletedSuccessfully) write.AsTask().GetAwaiter().GetResult();
     }
 
     // The shared tier promises to answer a miss rather than throw; a broken promise must still not fail the request.

@@ -16,7 +16,8 @@ namespace Mosaic.Canvas.Resampling;
 /// <para>Speed: within a grid cell the chip position is linear along a canvas row, so each cell's pixels are the
 /// steps start + step m; the steps off the chip are cut away up front (<see cref="StepWindow"/>), and where no other
 /// chip competes and the nodes are finite the rest go eight (AVX-512) or four (AVX2) at a time with gathered chip
-/// values. Every path computes the same expressions in the same order, so results do not depend on the path.</para>
+/// values, or plain loads where the lanes' chip pixels are neighbours in one chip row (as at about the chip's own
+/// scale). Every path computes the same expressions in the same order, so results do not depend on the path.</para>
 /// </summary>
 internal static class BandResampler
 {
@@ -150,6 +151,8 @@ internal static class BandResampler
         var grid = chip.Grid;
         var G = grid.Spacing;
         int k0 = cs / G, k1 = ce / G + 1, nodes = k1 - k0 + 1;
+        // G is a power of two, so multiplying by its reciprocal is exact: the same bits as dividing, without a division per cell.
+        var perNode = 1.0 / G;
         var scratch = ArrayPool<double>.Shared.Rent(2 * nodes);
         try
         {
@@ -179,9 +182,9 @@ internal static class BandResampler
                 for (int c = cs, k = cs / G; c <= ce; k++)
                 {
                     var end = Math.Min(ce, k * G + G - 1);
-                    double t0 = (double)(c - k * G) / G;
+                    double t0 = (c - k * G) * perNode;
                     int kk = k - k0;
-                    double sx = (nodeX[kk + 1] - nodeX[kk]) / G, sy = (nodeY[kk + 1] - nodeY[kk]) / G;
+                    double sx = (nodeX[kk + 1] - nodeX[kk]) * perNode, sy = (nodeY[kk + 1] - nodeY[kk]) * perNode;
                     double startX = nodeX[kk] + t0 * G * sx, startY = nodeY[kk] + t0 * G * sy;
                     int lo = 0, hi = end - c + 1;
                     // Gap and edge pixels are skipped without work; a cell with a NaN node keeps every pixel for the exact chain.
@@ -277,6 +280,7 @@ internal static class BandResampler
             Vector128<int> limitX = Vector128.Create(rect.X1 - rect.X0), limitY = Vector128.Create(rect.Y1 - rect.Y0);
             var stride = Vector128.Create(rect.Width);
             var rw = rect.Width;
+            var steady = Vector128.Create(0, 1, 2, 3);
             fixed (float* values = rect.Values)
             fixed (float* target = output)
             {
@@ -296,11 +300,26 @@ internal static class BandResampler
                         FillPixels(chip, rect, startX, sx, startY, sy, m, m + Vector256<double>.Count, output);
                         continue;
                     }
-                    var at = iy * stride + ix;
-                    var p00 = Avx.ConvertToVector256Double(Avx2.GatherVector128(values, at, sizeof(float)));
-                    var p10 = Avx.ConvertToVector256Double(Avx2.GatherVector128(values + 1, at, sizeof(float)));
-                    var p01 = Avx.ConvertToVector256Double(Avx2.GatherVector128(values + rw, at, sizeof(float)));
-                    var p11 = Avx.ConvertToVector256Double(Avx2.GatherVector128(values + rw + 1, at, sizeof(float)));
+                    Vector256<double> p00, p10, p01, p11;
+                    var firstX = ix.ToScalar();
+                    var firstY = iy.ToScalar();
+                    if ((Vector128.Equals(ix, Vector128.Create(firstX) + steady) & Vector128.Equals(iy, Vector128.Create(firstY))).ExtractMostSignificantBits() == 0xF)
+                    {
+                        // Four neighbouring columns of one chip row: plain loads of the floats a gather would fetch.
+                        var row = values + (firstY * rw + firstX);
+                        p00 = Avx.ConvertToVector256Double(Vector128.Load(row));
+                        p10 = Avx.ConvertToVector256Double(Vector128.Load(row + 1));
+                        p01 = Avx.ConvertToVector256Double(Vector128.Load(row + rw));
+                        p11 = Avx.ConvertToVector256Double(Vector128.Load(row + rw + 1));
+                    }
+                    else
+                    {
+                        var at = iy * stride + ix;
+                        p00 = Avx.ConvertToVector256Double(Avx2.GatherVector128(values, at, sizeof(float)));
+                        p10 = Avx.ConvertToVector256Double(Avx2.GatherVector128(values + 1, at, sizeof(float)));
+                        p01 = Avx.ConvertToVector256Double(Avx2.GatherVector128(values + rw, at, sizeof(float)));
+                        p11 = Avx.ConvertToVector256Double(Avx2.GatherVector128(values + rw + 1, at, sizeof(float)));
+                    }
                     var wx = u - Avx.ConvertToVector256Double(pi);
                     var wy = v - Avx.ConvertToVector256Double(pj);
                     var value = (one - wy) * ((one - wx) * p00 + wx * p10) + wy * ((one - wx) * p01 + wx * p11);
@@ -317,46 +336,58 @@ internal static class BandResampler
         FillPixels(chip, rect, startX, sx, startY, sy, m, hi, output);
     }
 
-    /// <summary><see cref="FillCell"/> eight pixels at a time with AVX-512; returns the first step not done.</summary>
+    /// <summary>
+    /// <see cref="FillCell"/> eight pixels at a time with AVX-512; returns the first step not done. The steps whose
+    /// four neighbours all lie in the rectangle are found once per cell (<see cref="HeldSteps"/>), so the loop tests
+    /// only that its values are finite.
+    /// </summary>
     [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private static unsafe int FillCellWide(PlacedChip chip, ChipRect rect, double startX, double sx, double startY, double sy, int lo, int hi, Span<float> output)
     {
         const int Lanes = 8;
-        var m = lo;
+        HeldSteps(chip, rect, startX, sx, startY, sy, lo, hi, out var first, out var end);
+        if (end - first < Lanes) return lo;
+        FillPixels(chip, rect, startX, sx, startY, sy, lo, first, output);
+        var m = first;
         var one = Vector512<double>.One;
-        var low = Vector512.Create(-0.5);
-        var uEnd = Vector512.Create(chip.Plane.Width - 0.5);
-        var vEnd = Vector512.Create(chip.Plane.Height - 0.5);
         Vector512<double> x0 = Vector512.Create(startX), y0 = Vector512.Create(startY), dx = Vector512.Create(sx), dy = Vector512.Create(sy);
         var lanes = Vector512.Create(0.0, 1, 2, 3, 4, 5, 6, 7);
         Vector256<int> originX = Vector256.Create(rect.X0), originY = Vector256.Create(rect.Y0);
-        Vector256<int> limitX = Vector256.Create(rect.X1 - rect.X0), limitY = Vector256.Create(rect.Y1 - rect.Y0);
         var stride = Vector256.Create(rect.Width);
         var rw = rect.Width;
+        var steady = Vector256.Create(0, 1, 2, 3, 4, 5, 6, 7);
         fixed (float* values = rect.Values)
         fixed (float* target = output)
         {
-            for (; m <= hi - Lanes; m += Lanes)
+            for (; m <= end - Lanes; m += Lanes)
             {
                 var steps = Vector512.Create((double)m) + lanes;
                 var u = x0 + dx * steps - one;
                 var v = y0 + dy * steps - one;
-                var inside = Vector512.GreaterThanOrEqual(u, low) & Vector512.LessThan(u, uEnd) & Vector512.GreaterThanOrEqual(v, low) & Vector512.LessThan(v, vEnd);
                 var pi = Avx512F.ConvertToVector256Int32WithTruncation(u + one) - Vector256<int>.One;
                 var pj = Avx512F.ConvertToVector256Int32WithTruncation(v + one) - Vector256<int>.One;
                 Vector256<int> ix = pi - originX, iy = pj - originY;
-                var held = Vector256.GreaterThanOrEqual(ix, Vector256<int>.Zero) & Vector256.LessThan(ix, limitX)
-                    & Vector256.GreaterThanOrEqual(iy, Vector256<int>.Zero) & Vector256.LessThan(iy, limitY);
-                if (inside.ExtractMostSignificantBits() != 0xFF || held.ExtractMostSignificantBits() != 0xFF)
+                Vector512<double> p00, p10, p01, p11;
+                var firstX = ix.ToScalar();
+                var firstY = iy.ToScalar();
+                if ((Vector256.Equals(ix, Vector256.Create(firstX) + steady) & Vector256.Equals(iy, Vector256.Create(firstY))).ExtractMostSignificantBits() == 0xFF)
                 {
-                    FillPixels(chip, rect, startX, sx, startY, sy, m, m + Lanes, output);
-                    continue;
+                    // Eight neighbouring chip columns of one chip row (the usual case at a canvas of about the chip's
+                    // scale): plain loads of the same floats a gather would fetch, at a fraction of its cost.
+                    var row = values + (firstY * rw + firstX);
+                    p00 = Avx512F.ConvertToVector512Double(Vector256.Load(row));
+                    p10 = Avx512F.ConvertToVector512Double(Vector256.Load(row + 1));
+                    p01 = Avx512F.ConvertToVector512Double(Vector256.Load(row + rw));
+                    p11 = Avx512F.ConvertToVector512Double(Vector256.Load(row + rw + 1));
                 }
-                var at = iy * stride + ix;
-                var p00 = Avx512F.ConvertToVector512Double(Avx2.GatherVector256(values, at, sizeof(float)));
-                var p10 = Avx512F.ConvertToVector512Double(Avx2.GatherVector256(values + 1, at, sizeof(float)));
-                var p01 = Avx512F.ConvertToVector512Double(Avx2.GatherVector256(values + rw, at, sizeof(float)));
-                var p11 = Avx512F.ConvertToVector512Double(Avx2.GatherVector256(values + rw + 1, at, sizeof(float)));
+                else
+                {
+                    var at = iy * stride + ix;
+                    p00 = Avx512F.ConvertToVector512Double(Avx2.GatherVector256(values, at, sizeof(float)));
+                    p10 = Avx512F.ConvertToVector512Double(Avx2.GatherVector256(values + 1, at, sizeof(float)));
+                    p01 = Avx512F.ConvertToVector512Double(Avx2.GatherVector256(values + rw, at, sizeof(float)));
+                    p11 = Avx512F.ConvertToVector512Double(Avx2.GatherVector256(values + rw + 1, at, sizeof(float)));
+                }
                 var wx = u - Avx512F.ConvertToVector512Double(pi);
                 var wy = v - Avx512F.ConvertToVector512Double(pj);
                 var value = (one - wy) * ((one - wx) * p00 + wx * p10) + wy * ((one - wx) * p01 + wx * p11);
@@ -370,6 +401,33 @@ internal static class BandResampler
             }
         }
         return m;
+    }
+
+    /// <summary>
+    /// Steps [first, end) within [lo, hi): those whose position is on the chip and whose four neighbours lie in the
+    /// rectangle, the tests <see cref="FillPixels"/> makes, computed as it computes them. Each rounded operation of
+    /// start + step m - 1 and its truncation is monotonic in m, so every test holds on an interval of steps and so
+    /// does their conjunction: trimming failing steps off both ends finds it, usually within a step or two (the
+    /// window is already cut to the chip).
+    /// </summary>
+    private static void HeldSteps(PlacedChip chip, ChipRect rect, double startX, double sx, double startY, double sy, int lo, int hi, out int first, out int end)
+    {
+        var bounds = new HeldBounds(chip.Plane.Width - 0.5, chip.Plane.Height - 0.5, rect.X0, rect.Y0, (uint)(rect.X1 - rect.X0), (uint)(rect.Y1 - rect.Y0));
+        first = lo;
+        while (first < hi && !bounds.Holds(startX + sx * first - 1, startY + sy * first - 1)) first++;
+        end = hi;
+        while (end > first && !bounds.Holds(startX + sx * (end - 1) - 1, startY + sy * (end - 1) - 1)) end--;
+    }
+
+    /// <summary>The tests of <see cref="FillPixels"/> on one 0-based chip position (u, v), in its words.</summary>
+    private readonly record struct HeldBounds(double UEnd, double VEnd, int X0, int Y0, uint SpanX, uint SpanY)
+    {
+        public bool Holds(double u, double v)
+        {
+            if (!(u >= -0.5 && u < UEnd && v >= -0.5 && v < VEnd)) return false;
+            int pi = (int)(u + 1) - 1, pj = (int)(v + 1) - 1;
+            return (uint)(pi - X0) < SpanX && (uint)(pj - Y0) < SpanY;
+        }
     }
 
     /// <summary>Steps [lo, hi) of <see cref="FillCell"/> one pixel at a time.</summary>

@@ -12,8 +12,9 @@ namespace Mosaic.Imaging.Composite;
 /// </summary>
 internal static class CompositeComposer
 {
+    /// <param name="knownUnmasked">The caller knows no band holds a NaN (a pyramid's histogram counts none), so the first pass is skipped.</param>
     public static byte[] Render<TRows>(scoped ref TRows red, scoped ref TRows green, scoped ref TRows blue,
-        int rowsPerBand, int width, int height, CompositeMap map, MaskedColor masked)
+        int rowsPerBand, int width, int height, CompositeMap map, MaskedColor masked, bool knownUnmasked = false)
         where TRows : IValueRows, allows ref struct
     {
         ArgumentNullException.ThrowIfNull(map);
@@ -24,7 +25,7 @@ internal static class CompositeComposer
         ReadOnlySpan<float> r = default, g = default, b = default;
         var inHandFirst = -1;
         var anyMasked = false;
-        for (var y0 = 0; y0 < height && !anyMasked; y0 += rowsPerBand)
+        for (var y0 = 0; y0 < height && !anyMasked && !knownUnmasked; y0 += rowsPerBand)
         {
             var count = Math.Min(rowsPerBand, height - y0);
             r = red.Read(y0, count);

@@ -29,12 +29,28 @@ public static class CompositeRenderer
             pyramids.Red.ReadTile(z, x, y, red);
             pyramids.Green.ReadTile(z, x, y, green);
             pyramids.Blue.ReadTile(z, x, y, blue);
-            return RenderPng(red, green, blue, T, T, map, map.Masked);
+            var r = new SpanRows(red, T);
+            var g = new SpanRows(green, T);
+            var b = new SpanRows(blue, T);
+            return CompositeComposer.Render(ref r, ref g, ref b, T, T, T, map, map.Masked, HoldsNoNaN(pyramids, z, x, y));
         }
         finally
         {
             ArrayPool<float>.Shared.Return(values);
         }
+    }
+
+    /// <summary>
+    /// A native tile inside the image of bands whose histograms count no masked pixel (NaN, BLANK or infinite) holds
+    /// no NaN, so the composer need not look for one: that pass over three tiles is about 3 % of a colour tile.
+    /// </summary>
+    private static bool HoldsNoNaN(Channels<Pyramid> pyramids, int z, int x, int y)
+    {
+        var geometry = pyramids.Red.Geometry;
+        if (z != geometry.MaxZoom || (x + 1L) * T > geometry.Width || (y + 1L) * T > geometry.Height) return false;
+        foreach (var pyramid in pyramids.AsEnumerable())
+            if (pyramid.Histogram.MaskedCount != 0) return false;
+        return true;
     }
 
     /// <summary>width x height values per band, the top row first, NaN where masked.</summary>

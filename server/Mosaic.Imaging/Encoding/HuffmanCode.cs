@@ -1,3 +1,4 @@
+using System.Runtime.CompilerServices;
 namespace Mosaic.Imaging.Encoding;
 
 /// <summary>
@@ -10,6 +11,7 @@ internal static class HuffmanCode
     private const int SymbolBits = 9; // deflate's largest alphabet has 288 symbols
 
     /// <summary>Code lengths for freqs (0 for unused symbols); at least two symbols always get a code, so the code is complete.</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     public static void Lengths(ReadOnlySpan<long> frequencies, int maxLength, Span<byte> lengths)
     {
         var n = frequencies.Length;

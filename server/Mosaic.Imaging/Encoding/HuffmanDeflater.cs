@@ -93,6 +93,7 @@ internal sealed class HuffmanDeflater
     /// advancing by the whole bytes pending has no branch; bytes stored past the advance are overwritten by the
     /// next store, and the span's slack covers the last one.
     /// </summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private int Encode(ReadOnlySpan<byte> data, ReadOnlySpan<ulong> codes, ReadOnlySpan<byte> lengths, Span<byte> span, ref int at)
     {
         ref var p = ref MemoryMarshal.GetReference(data);
@@ -144,6 +145,7 @@ internal sealed class HuffmanDeflater
     /// byte more than one fitted to the whole (well under 1 % here), and counting was a third of the encoder's time.
     /// A byte value the sample missed may still occur, so every value keeps a count of at least 1.
     /// </summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private static void Count(ReadOnlySpan<byte> data, Span<long> frequencies)
     {
         // Four tables so runs of one byte value do not stall on the same counter; indices are bytes, so in range.
@@ -164,6 +166,7 @@ internal sealed class HuffmanDeflater
         for (var b = 0; b < 256; b++) frequencies[b] = Math.Max(floor, (long)counts[b] + counts[256 + b] + counts[512 + b] + counts[768 + b]);
     }
 
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private static void CountRun(ReadOnlySpan<byte> data, Span<uint> counts)
     {
         ref var c = ref MemoryMarshal.GetReference(counts);
@@ -224,6 +227,7 @@ internal sealed class HuffmanDeflater
         return at;
     }
 
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private void Adler(ReadOnlySpan<byte> data)
     {
         uint a = _adlerA, b = _adlerB;
@@ -253,6 +257,7 @@ internal sealed class HuffmanDeflater
 
     // 32 bytes a step: a gains their sum; b gains 32 a (for a before the step) plus the sum of (32 - j) x_j.
     // Sums stay below 2^32 within one chunk of at most AdlerChunk bytes, as in the scalar loop.
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private static int AdlerVector(ReadOnlySpan<byte> chunk, ref uint a, ref uint b)
     {
         ref var p = ref MemoryMarshal.GetReference(chunk);

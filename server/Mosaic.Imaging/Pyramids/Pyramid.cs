@@ -161,11 +161,28 @@ public sealed class Pyramid : IDisposable
         foreach (var level in _levels) level.Dispose();
     }
 
-    /// <summary>Native rows come from the plane bottom-up; the region is top-down.</summary>
+    /// <summary>
+    /// Native rows come from the plane bottom-up; the region is top-down. Where the region's columns lie inside the
+    /// image (every tile but those on the right edge), its rows inside come in one block read.
+    /// </summary>
     private void ReadNative(ImagePlane native, int left, int top, int width, int height, Span<float> region)
     {
         int imageWidth = Geometry.Width, imageHeight = Geometry.Height;
         int c0 = Math.Clamp(left, 0, imageWidth), c1 = (int)Math.Clamp((long)left + width, 0, imageWidth);
+        if (c0 == left && c1 - c0 == width && width > 0)
+        {
+            // Region rows [first, end) lie inside the image.
+            int first = (int)Math.Clamp(-(long)top, 0, height), end = (int)Math.Clamp((long)imageHeight - top, 0, height);
+            if (first >= end)
+            {
+                region.Fill(float.NaN);
+                return;
+            }
+            region[..(first * width)].Fill(float.NaN);
+            region[(end * width)..].Fill(float.NaN);
+            native.ReadBlock(left, imageHeight - 1 - (top + first), width, end - first, -1, region[(first * width)..(end * width)]);
+            return;
+        }
         for (var j = 0; j < height; j++)
         {
             var row = region.Slice(j * width, width);

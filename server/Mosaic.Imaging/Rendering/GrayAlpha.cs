@@ -7,6 +7,7 @@ namespace Mosaic.Imaging.Rendering;
 /// <summary>Interleaves levels with an alpha of 0 where the value is NaN (masked or outside), 255 elsewhere.</summary>
 internal static class GrayAlpha
 {
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     public static void Interleave(ReadOnlySpan<byte> levels, ReadOnlySpan<float> values, Span<byte> grayAlpha)
     {
         if (levels.Length != values.Length) throw new ArgumentException("levels and values must be the same length", nameof(levels));

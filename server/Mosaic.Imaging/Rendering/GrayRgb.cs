@@ -1,8 +1,10 @@
+using System.Runtime.CompilerServices;
 namespace Mosaic.Imaging.Rendering;
 
 /// <summary>Expands gray levels to r, g, b triples, with one opaque colour where the value is NaN.</summary>
 internal static class GrayRgb
 {
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     public static void Expand(ReadOnlySpan<byte> levels, ReadOnlySpan<float> values, Span<byte> rgb, byte r, byte g, byte b)
     {
         if (levels.Length != values.Length) throw new ArgumentException("levels and values must be the same length", nameof(levels));

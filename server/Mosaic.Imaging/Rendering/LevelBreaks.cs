@@ -25,6 +25,8 @@ internal sealed class LevelBreaks
         _segments = segments;
     }
 
+    public long RetainedBytes => 8L * _breaks.Length + _segments.Length;
+
     public static LevelBreaks Find(ValueRange limits, LevelFunction levelOf, LookupTable table)
     {
         var breaks = new List<double>();

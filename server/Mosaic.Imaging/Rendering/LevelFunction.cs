@@ -1,3 +1,4 @@
+using System.Runtime.CompilerServices;
 using Mosaic.Imaging.Display.Palettes;
 using Mosaic.Imaging.Display.Stretches;
 
@@ -11,6 +12,7 @@ internal sealed class LevelFunction(IStretchCurve curve, IPalette palette)
 {
     private readonly bool _gray = palette.IsGray;
 
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     public byte At(double u)
     {
         var t = curve.Map(u);

@@ -22,10 +22,11 @@ internal sealed class LookupTable
     private readonly float _scale;
     private readonly float _lastIndex;
 
-    private LookupTable(ValueRange limits, byte[] levels, int entries)
+    private LookupTable(ValueRange limits, byte[] levels, int entries, int largestStep)
     {
         _levels = levels;
         Entries = entries;
+        LargestStep = largestStep;
         _loHigh = (float)limits.Lo;
         _loLow = (float)(limits.Lo - _loHigh);
         _scale = (float)((entries - 1) / limits.Width);
@@ -36,56 +37,113 @@ internal sealed class LookupTable
 
     public int Entries { get; }
 
+    public long RetainedBytes => _levels.Length;
+
     public byte this[int index] => _levels[index];
 
     public static LookupTable Build(ValueRange limits, LevelFunction levelOf, int entries)
     {
         // + 1 for the NaN entry, + 3 so a 4-byte gather at the last index stays inside the array.
         var levels = new byte[entries + 4];
-        FillMonotone(levels.AsSpan(0, entries), levelOf);
-        return new LookupTable(limits, levels, entries);
+        var largestStep = FillMonotone(levels.AsSpan(0, entries), levelOf);
+        return new LookupTable(limits, levels, entries, largestStep);
     }
 
-    // The level function is monotone in u (LevelFunction), so where the two ends of a stretch of entries have the
-    // same level every entry between has it too: evaluate ends and split only stretches that hold a step. That is
-    // about (levels x 2 log2 entries) evaluations instead of one per entry (65,536 for a steep curve), which made a
-    // display with new limits cost more to compile than the tile it renders.
-    private static void FillMonotone(Span<byte> levels, LevelFunction levelOf)
+    // The level function is monotone in u (LevelFunction), so once an entry has a level, every entry up to the first
+    // one with another level has it too: the table is a run of equal levels per step, and filling it means finding
+    // where each run ends. The end is first guessed one run length on (neighbouring runs of a smooth curve are about
+    // as long), then bracketed by doubling steps from the guess and split in halves. A good guess costs 2
+    // evaluations a run, against about 2 log2(run length) when halving the whole table, and the compile of a new
+    // display is mostly these evaluations. Returns the largest step between neighbouring entries.
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
+    private static int FillMonotone(Span<byte> levels, LevelFunction levelOf)
     {
         var last = levels.Length - 1;
         double scale = last;
-        levels[0] = levelOf.At(0);
-        if (last == 0) return;
-        levels[last] = levelOf.At(1);
-        Span<(int Lo, int Hi)> pending = stackalloc (int, int)[64];
-        var count = 0;
-        pending[count++] = (0, last);
-        while (count > 0)
+        var level = levelOf.At(0);
+        if (last == 0)
         {
-            var (lo, hi) = pending[--count];
-            if (hi - lo < 2) continue;
-            if (levels[lo] == levels[hi])
-            {
-                levels[(lo + 1)..hi].Fill(levels[lo]);
-                continue;
-            }
-            var mid = lo + (hi - lo) / 2;
-            levels[mid] = levelOf.At(mid / scale);
-            // Depth first, so at most one pending stretch per halving: 64 slots cover any int length.
-            pending[count++] = (mid, hi);
-            pending[count++] = (lo, mid);
+            levels[0] = level;
+            return 0;
         }
+        var lastLevel = levelOf.At(1);
+        var largestStep = 0;
+        var start = 0;
+        var runLength = 1;
+        while (true)
+        {
+            // Monotone: the run reaches the end when the last entry has its level.
+            if (level == lastLevel)
+            {
+                levels[start..].Fill(level);
+                return largestStep;
+            }
+            // Find the first entry after start whose level differs: after lo (same level), at or before hi (not).
+            int lo, hi;
+            byte hiLevel;
+            var guess = Math.Min(last, start + runLength);
+            var guessLevel = LevelAt(guess);
+            if (guessLevel == level)
+            {
+                lo = guess;
+                for (var step = 1; ; step *= 2)
+                {
+                    var probe = (int)Math.Min(last, (long)lo + step);
+                    var probeLevel = LevelAt(probe);
+                    if (probeLevel != level)
+                    {
+                        hi = probe;
+                        hiLevel = probeLevel;
+                        break;
+                    }
+                    lo = probe;
+                }
+            }
+            else
+            {
+                hi = guess;
+                hiLevel = guessLevel;
+                lo = start;
+                for (var step = 1; hi - step > start; step *= 2)
+                {
+                    var probe = hi - step;
+                    var probeLevel = levelOf.At(probe / scale);
+                    if (probeLevel == level)
+                    {
+                        lo = probe;
+                        break;
+                    }
+                    hi = probe;
+                    hiLevel = probeLevel;
+                }
+            }
+            while (hi - lo > 1)
+            {
+                var mid = lo + (hi - lo) / 2;
+                var midLevel = levelOf.At(mid / scale);
+                if (midLevel == level) lo = mid;
+                else
+                {
+                    hi = mid;
+                    hiLevel = midLevel;
+                }
+            }
+            levels[start..hi].Fill(level);
+            largestStep = Math.Max(largestStep, Math.Abs(hiLevel - level));
+            runLength = hi - start;
+            start = hi;
+            level = hiLevel;
+        }
+
+        byte LevelAt(int index) => index == last ? lastLevel : levelOf.At(index / scale);
     }
 
-    public int LargestStep()
-    {
-        var largest = 0;
-        for (var i = 1; i < Entries; i++) largest = Math.Max(largest, Math.Abs(_levels[i] - _levels[i - 1]));
-        return largest;
-    }
+    /// <summary>The largest difference in level between neighbouring entries.</summary>
+    public int LargestStep { get; }
 
     public int Apply(ReadOnlySpan<float> values, Span<byte> levels) => Apply(values, levels, LookupPath.Auto);
 
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     public int Apply(ReadOnlySpan<float> values, Span<byte> levels, LookupPath path)
     {
         if (levels.Length < values.Length) throw new ArgumentException("levels must be at least as long as values", nameof(levels));
@@ -125,6 +183,7 @@ internal sealed class LookupTable
 
     // Gathers win over scalar reads by about 2x here (ToneMapBenchmarks); 256-bit index arithmetic measured as fast
     // as 512-bit since the gathers dominate, so one path serves AVX2 and AVX-512 machines alike.
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private unsafe int ApplyGather(ref float source, ref byte target, int n, ref int start)
     {
         var loHigh = Vector256.Create(_loHigh);
@@ -161,6 +220,7 @@ internal sealed class LookupTable
             => Vector256.MinNative(Vector256.MaxNative((v - loHigh - loLow) * scale + half, Vector256<float>.Zero), lastIndex);
     }
 
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private int ApplyVector(ref float source, ref byte target, ref byte table, int n, ref int start)
     {
         var loHigh = new Vector<float>(_loHigh);

@@ -1,4 +1,5 @@
 using System.Numerics;
+using System.Runtime.CompilerServices;
 using System.Runtime.InteropServices;
 
 namespace Mosaic.Imaging.Rendering;
@@ -6,6 +7,7 @@ namespace Mosaic.Imaging.Rendering;
 /// <summary>Counts NaN (masked or outside) values, so the PNG colour type is chosen before any row is written.</summary>
 internal static class NanCount
 {
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     public static long Of(ReadOnlySpan<float> values)
     {
         ref var v = ref MemoryMarshal.GetReference(values);

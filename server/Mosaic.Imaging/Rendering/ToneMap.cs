@@ -63,6 +63,12 @@ public sealed class ToneMap
     /// <summary>Entries in the lookup table; 0 where the curve is too steep for any table and levels come from breakpoints.</summary>
     public int TableEntries => _table?.Entries ?? 0;
 
+    /// <summary>Bytes this map holds (table or breakpoints, palette, the object itself): what a cache of compiled displays counts.</summary>
+    public long RetainedBytes => ObjectBytes + (_table?.RetainedBytes ?? 0) + (_breaks?.RetainedBytes ?? 0) + (PaletteBytes?.Length ?? 0);
+
+    // This object's fields and the array headers it points at, roughly (common practice: 24 bytes an array on 64-bit).
+    private const long ObjectBytes = 128;
+
     /// <summary>
     /// Compiles a curve and palette over the limits. <paramref name="minimumEntries"/> (a power of two from 256 to
     /// <see cref="MaximumEntries"/>) is where the table search starts; it grows until the 1 DN bound holds.
@@ -84,7 +90,7 @@ public sealed class ToneMap
         for (var entries = minimumEntries; ; )
         {
             var table = LookupTable.Build(limits, levelOf, entries);
-            var step = table.LargestStep();
+            var step = table.LargestStep;
             if (step <= 1) return new ToneMap(limits, table, null, palette, masked);
             if (entries == MaximumEntries) return new ToneMap(limits, null, LevelBreaks.Find(limits, levelOf, table), palette, masked);
             // Jump straight to about the size the measured slope asks for rather than doubling blindly.

@@ -1,6 +1,5 @@
 using System.ComponentModel;
 using System.Text;
-using Microsoft.AspNetCore.Http.HttpResults;
 using Mosaic.Server.Composite;
 using Mosaic.Server.Errors;
 using Mosaic.Server.Fields;
@@ -22,7 +21,7 @@ public static class RenderEndpoints
         return group;
     }
 
-    private static async Task<FileContentHttpResult> Render(
+    private static async Task<PngResponse> Render(
         string field,
         [Description("Band name (case-insensitive); the field's first band when absent.")] string? band,
         [Description("Chip: HDU index (the band's chip number where the band spans several files), EXTNAME or chip name, or canvas (the whole-field canvas); may be left out where every band has one image HDU.")] string? hdu,
@@ -49,10 +48,10 @@ public static class RenderEndpoints
         var name = $"{target.Field.Id}-{target.Name}-{image.Index}-{box.X0}-{box.Y0}-{box.X1}-{box.Y1}.png";
         context.Response.Headers.ContentDisposition = $"inline; filename=\"{SafeFileName(name)}\"";
         context.Response.Headers.CacheControl = "no-cache";
-        return TypedResults.File(png, "image/png");
+        return new PngResponse(png);
     }
 
-    private static async Task<FileContentHttpResult> RenderComposite(string field, string? hdu, string? x0, string? y0, string? x1, string? y1,
+    private static async Task<PngResponse> RenderComposite(string field, string? hdu, string? x0, string? y0, string? x1, string? y1,
         CompositeRequest request, HttpContext context, FieldCatalog catalog, RegionImageService images, RenderQueue queue)
     {
         var found = catalog.Get(field);
@@ -74,7 +73,7 @@ public static class RenderEndpoints
         var name = $"{found.Id}-{bandNames}-{image.Index}-{box.X0}-{box.Y0}-{box.X1}-{box.Y1}.png";
         context.Response.Headers.ContentDisposition = $"inline; filename=\"{SafeFileName(name)}\"";
         context.Response.Headers.CacheControl = "no-cache";
-        return TypedResults.File(png, "image/png");
+        return new PngResponse(png);
     }
 
     /// <summary>Field and band names come from file names: keep the header a plain quoted ASCII string.</summary>

@@ -1,4 +1,5 @@
 using Mosaic.Server.Access;
+using Mosaic.Server.ClientFiles;
 using Mosaic.Server.Endpoints;
 using Mosaic.Server.Errors;
 using Mosaic.Server.Fields;
@@ -50,8 +51,7 @@ public static class MosaicServices
         app.UseMiddleware<QueryGuard>();
         app.UseRateLimiter();
         app.UseRequestTimeouts();
-        app.UseDefaultFiles();
-        app.UseStaticFiles();
+        app.UseClientFiles();
         app.MapOpenApi();
         app.MapHealthEndpoints();
         app.MapFieldEndpoints().AddEndpointFilter<VisibleFieldsFilter>();

@@ -6,11 +6,12 @@ namespace Mosaic.Server.Redis;
 /// The one multiplexer this instance shares among the tile tier, the meeting store and the SignalR backplane.
 /// It connects when the host starts; with Redis down it keeps retrying in the background and the server serves on.
 /// </summary>
-public sealed class RedisConnection : IHostedService, IDisposable
+public sealed class RedisConnection : IDisposable
 {
     private readonly Lazy<ConnectionMultiplexer> _multiplexer;
     private readonly Lazy<IConnectionMultiplexer> _borrowed;
     private readonly ILogger<RedisConnection> _logger;
+    private int _disposed;
 
     public RedisConnection(ConfigurationOptions options, ILogger<RedisConnection> logger)
     {
@@ -37,6 +38,7 @@ public sealed class RedisConnection : IHostedService, IDisposable
     /// <summary>Whether a command sent now would reach a server; no round trip.</summary>
     public bool IsConnected => Multiplexer.IsConnected;
 
+    /// <summary>Connects now (a hosted service calls this at start, <see cref="RedisConnectionStart"/>).</summary>
     public Task StartAsync(CancellationToken cancellationToken)
     {
         // Connect before the first request rather than during it.
@@ -44,11 +46,9 @@ public sealed class RedisConnection : IHostedService, IDisposable
         return Task.CompletedTask;
     }
 
-    public Task StopAsync(CancellationToken cancellationToken) => Task.CompletedTask;
-
     public void Dispose()
     {
-        if (!_multiplexer.IsValueCreated) return;
+        if (!_multiplexer.IsValueCreated || Interlocked.Exchange(ref _disposed, 1) == 1) return;
         var multiplexer = _multiplexer.Value;
         try
         {
@@ -56,9 +56,9 @@ public sealed class RedisConnection : IHostedService, IDisposable
             // nothing to send over the closed connection.
             multiplexer.GetSubscriber().UnsubscribeAll(CommandFlags.FireAndForget);
         }
-        catch (RedisException)
+        catch (Exception e) when (e is RedisException or ObjectDisposedException)
         {
-            // Redis already gone: the subscriptions went with it.
+            // Redis already gone, or the multiplexer closed by its own failed reconnect: the subscriptions went with it.
         }
         multiplexer.Dispose();
     }

@@ -16,7 +16,7 @@ public static class RedisServices
         var options = RedisConfiguration.Parse(configuration);
         services.TryAddSingleton(TimeProvider.System);
         services.AddSingleton(sp => new RedisConnection(options, sp.GetRequiredService<ILogger<RedisConnection>>()));
-        services.AddHostedService(sp => sp.GetRequiredService<RedisConnection>());
+        services.AddHostedService<RedisConnectionStart>();
         services.TryAddSingleton(new RedisTileTierOptions());
 
         services.AddStackExchangeRedisCache(_ => { });

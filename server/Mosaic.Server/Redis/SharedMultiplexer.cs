@@ -5,7 +5,8 @@ namespace Mosaic.Server.Redis;
 
 /// <summary>
 /// The shared multiplexer as handed to the distributed cache and the SignalR backplane: everything passes through
-/// except closing and disposing, which belong to <see cref="RedisConnection"/>. Those libraries close the
+/// except closing and disposing, which belong to <see cref="RedisConnection"/>, and the subscriber, which comes
+/// wrapped (<see cref="SharedSubscriber"/>). Those libraries close the
 /// connection they were given when they are disposed, and the one disposed first would cut it off for the others.
 /// </summary>
 public class SharedMultiplexer : DispatchProxy
@@ -34,7 +35,8 @@ public class SharedMultiplexer : DispatchProxy
         }
         try
         {
-            return targetMethod.Invoke(_inner, args);
+            var result = targetMethod.Invoke(_inner, args);
+            return result is ISubscriber subscriber ? SharedSubscriber.Over(subscriber) : result;
         }
         catch (TargetInvocationException e) when (e.InnerException is not null)
         {

@@ -25,11 +25,13 @@ public sealed class TileService(PyramidService pyramids, DisplayCompiler display
         ArgumentNullException.ThrowIfNull(hdu);
         ArgumentNullException.ThrowIfNull(display);
         CheckTile(hdu, z, x, y);
-        var key = $"{hdu.PyramidKey}/{display.CanonicalKey}/{z}/{x}/{y}";
+        // Built once: the settings make their key afresh on every read.
+        var displayKey = display.CanonicalKey;
+        var key = $"{hdu.PyramidKey}/{displayKey}/{z}/{x}/{y}";
         return new PreparedTile(key, ETagOf(key), () =>
         {
             var pyramid = pyramids.GetReady(hdu);
-            return TileRenderer.RenderPng(pyramid, z, x, y, displays.ToneMapFor(hdu.Band, display));
+            return TileRenderer.RenderPng(pyramid, z, x, y, displays.ToneMapFor(hdu.Band, display, displayKey));
         });
     }
 

@@ -12,7 +12,7 @@ public sealed record TileServingOptions
     public const int MaxMegabytes = 1 << 20;
 
     /// <summary>Bound on the encoded tiles kept in memory, in MiB.</summary>
-    public int MemoryMegabytes { get; init; } = 128;
+    public int MemoryMegabytes { get; init; } = 96;
 
     /// <summary>Bound on the tile files under the cache folder's tiles/, in MiB; 0 for no disk tier.</summary>
     public int DiskMegabytes { get; init; } = 2048;

@@ -3,6 +3,7 @@
 -- asks for the next tile with limits=value and a lo no earlier request used, so the server compiles the display
 -- and renders the tile from the pyramid every time. The optional second argument N keeps one display for N
 -- consecutive requests (a screen of tiles after one change of settings); the default, 1, is a new display each time.
+-- hi carries the run's start second, so a rerun against the same cache folder cannot find an earlier run's tiles on disk.
 --   wrk -t1 -c64 -d10s --latency -s cold.lua http://127.0.0.1:PORT -- cold-paths.tsv [N]
 
 local paths, los, spans = {}, {}, {}
@@ -10,6 +11,7 @@ local next_index = 1
 local counter = 0
 local per_display = 1
 local thread_id = 1
+local hi_fraction = 1
 
 function setup(thread)
   setup_count = (setup_count or 0) + 1
@@ -31,6 +33,7 @@ function init(args)
   per_display = tonumber(args[2] or "1")
   thread_id = wrk.thread:get("id") or 1
   next_index = thread_id * 97 % #paths + 1
+  hi_fraction = 1 - 1e-6 * (os.time() % 100000)
 end
 
 function request()
@@ -40,7 +43,7 @@ function request()
   local d = math.floor(counter / per_display) * 64 + thread_id
   counter = counter + 1
   local lo = los[i] + spans[i] * 1e-8 * d
-  local hi = los[i] + spans[i]
+  local hi = los[i] + spans[i] * hi_fraction
   return wrk.format("GET", string.format("%s&limits=value&lo=%.9f&hi=%.9f", paths[i], lo, hi))
 end
 

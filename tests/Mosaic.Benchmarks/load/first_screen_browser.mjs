@@ -5,7 +5,8 @@
 //
 //   node --experimental-websocket first_screen_browser.mjs LINK_URL
 //
-// Prints three FIGURE lines: the link with the server's tile cache as it is (cold when the server just started),
+// Prints a REQUEST line per request of the first (cold) opening, start and end in ms from navigation start and the
+// bytes transferred, then three FIGURE lines: the link with the server's tile cache as it is (cold when the server just started),
 // the same link again in a new context (tiles now in the server's cache), and the baseline: the same tile URLs as
 // bare <img> elements (no application code) in a new context, timed from their insertion.
 import { spawn } from 'node:child_process';
@@ -112,7 +113,14 @@ async function firstScreen(url, wait = true) {
         const end = (list) => Math.max(0, ...list.map((e) => e.responseEnd));
         const code = all.filter((e) => /[.](js|css)([?]|$)/.test(e.name));
         const api = all.filter((e) => e.name.includes('/api/') && e.startTime < firstTile);
-        return JSON.stringify({ ...window.__firstScreen, urls: tiles.map((e) => e.name),
+        // Every request's start and end on the page's clock, in start order, for the cold run's waterfall.
+        const short = (u) => u.replace(location.origin, '').replace(/[?].*$/, (q) => q.length > 25 ? q.slice(0, 24) + '…' : q);
+        const nav = performance.getEntriesByType('navigation')[0];
+        const timeline = [{ name: short(nav.name) + ' (page)', start: nav.startTime, end: nav.responseEnd, bytes: nav.transferSize },
+          { name: 'DOMContentLoaded', start: nav.domContentLoadedEventStart, end: nav.domContentLoadedEventEnd, bytes: 0 },
+          ...all.map((e) => ({ name: short(e.name), start: e.startTime, end: e.responseEnd, bytes: e.transferSize }))]
+          .sort((a, b) => a.start - b.start);
+        return JSON.stringify({ ...window.__firstScreen, urls: tiles.map((e) => e.name), timeline,
           steps: 'scripts_styles=' + code.length + '_done_at_' + end(code).toFixed(0) + 'ms api_before_tiles=' + api.length +
             '_done_at_' + end(api).toFixed(0) + 'ms (' + api.map((e) => e.name.replace(/^.*[/]api[/]/, '').replace(/[?].*$/, '') + '@' +
             e.startTime.toFixed(0) + '-' + e.responseEnd.toFixed(0)).join(',') + ') first_tile_asked_at=' + firstTile.toFixed(0) + 'ms last_tile_at=' + end(tiles).toFixed(0) + 'ms' });
@@ -176,6 +184,9 @@ try {
   const again = await firstScreen(link);
   const bare = await bareImages(new URL(link).origin, [...new Set(cold.urls)]);
   const line = (what, r) => console.log(`FIGURE ${what} ms=${r.ms.toFixed(0)} tiles_on_screen=${r.tiles} tile_requests=${r.urls.length}${r.steps ? ' ' + r.steps : ''}`);
+  for (const e of cold.timeline) {
+    console.log(`REQUEST ${e.start.toFixed(0).padStart(5)}-${e.end.toFixed(0).padStart(5)} ms ${String(e.bytes).padStart(7)} B ${e.name}`);
+  }
   line('link_server_cache_cold', cold);
   line('link_server_cache_warm', again);
   line('baseline_bare_img_page', bare);

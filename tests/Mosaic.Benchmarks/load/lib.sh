@@ -9,7 +9,7 @@ REPO=$(cd "$(dirname "${BASH_SOURCE[0]}")/../../.." && pwd)
 LOAD="$REPO/tests/Mosaic.Benchmarks/load"
 PY=/usr/bin/python3
 WORK=${MOSAIC_LOAD_WORK:-/tmp/mosaic-load}
-BIN="$WORK/bin"
+BIN=${MOSAIC_LOAD_BIN:-$WORK/bin} # another build to measure (with MOSAIC_LOAD_BUILD=0), e.g. an old one beside a new
 SERVER_CPUS=${MOSAIC_SERVER_CPUS:-0,1}
 WRK_CPUS=${MOSAIC_WRK_CPUS:-0}
 SERVER_PID=""
@@ -55,15 +55,17 @@ demo_data() {
 
 free_port() { $PY -c "import socket; s=socket.socket(); s.bind(('127.0.0.1',0)); print(s.getsockname()[1])"; }
 
-# start_server PORT DATA CACHE [more server arguments]: sets SERVER_PID; the log is $WORK/server-PORT.log.
-# The framework's per-request logs stay at their default (off); MOSAIC_SERVER_ENV adds environment variables.
+# start_server PORT DATA CACHE [more server arguments]: sets SERVER_PID and SERVER_LOG ($WORK/server-PORT.log).
+# The framework's per-request logs stay at their default (off); MOSAIC_SERVER_ENV adds environment variables and
+# MOSAIC_SERVER_ARGS server arguments (e.g. MOSAIC_SERVER_ARGS="--heap-limit-mb 0" for the GC's own heap limit).
 start_server() {
     local port=$1 data=$2 cache=$3
     shift 3
+    SERVER_LOG="$WORK/server-$port.log"
     # shellcheck disable=SC2086
     # The content root is the project folder, whose wwwroot/ the build fills with the client.
     env ${MOSAIC_SERVER_ENV:-} taskset -c "$SERVER_CPUS" dotnet "$BIN/Mosaic.Server.dll" --contentRoot "$REPO/server/Mosaic.Server" \
-        --data "$data" --cache "$cache" --state "$WORK/state-$port" --urls "http://127.0.0.1:$port" "$@" >"$WORK/server-$port.log" 2>&1 &
+        --data "$data" --cache "$cache" --state "$WORK/state-$port" --urls "http://127.0.0.1:$port" "$@" ${MOSAIC_SERVER_ARGS:-} >"$SERVER_LOG" 2>&1 &
     SERVER_PID=$!
 }
 
@@ -75,12 +77,20 @@ stop_server() {
     fi
 }
 
-# wait_ready BASE FIELD SECONDS: until every pyramid of the field (chips and canvases) is ready.
+# wait_ready BASE FIELD SECONDS: until every pyramid of the field (chips and canvases) is ready; fails at once if
+# the server started by start_server exits.
 wait_ready() {
-    $PY - "$@" <<'PY'
-import json, sys, time, urllib.request
-base, field, limit = sys.argv[1], sys.argv[2], float(sys.argv[3])
+    $PY - "$@" "${SERVER_PID:-0}" <<'PY'
+import json, os, sys, time, urllib.request
+base, field, limit, pid = sys.argv[1], sys.argv[2], float(sys.argv[3]), int(sys.argv[4])
 deadline = time.monotonic() + limit
+def alive():
+    if pid == 0: return True
+    try:
+        os.kill(pid, 0)
+        return True
+    except OSError:
+        return False
 def states(x):
     if isinstance(x, dict):
         for k, v in x.items():
@@ -96,6 +106,7 @@ while True:
         if any(s == "failed" for s in found): sys.exit(f"load: a pyramid of {field} failed")
     except OSError:
         pass
+    if not alive(): sys.exit("load: the server exited (see its log)")
     if time.monotonic() > deadline: sys.exit(f"load: {field} not ready after {limit} s")
     time.sleep(0.2)
 PY
@@ -118,6 +129,27 @@ PY
 
 load_average() { cut -d' ' -f1-3 /proc/loadavg; }
 
+# make_field FILE SIZE: the synthetic SIZE x SIZE float32 field of make_field.py (astropy), unless FILE exists.
+make_field() {
+    local file=$1 size=$2
+    [ -f "$file" ] && return
+    echo "== writing the synthetic ${size} x ${size} field into $file" >&2
+    mkdir -p "$(dirname "$file")"
+    timeout 600 $PY "$LOAD/make_field.py" "$file.tmp" "$size" && mv "$file.tmp" "$file"
+}
+
+# band_version BASE FIELD: the version of the field's first band (tile URLs carry it as v=).
+band_version() {
+    $PY -c 'import json, sys, urllib.request; print(json.load(urllib.request.urlopen(sys.argv[1] + "/api/fields/" + sys.argv[2]))["bands"][0]["version"])' "$1" "$2"
+}
+
+# The server's peak resident set so far (VmHWM), in MiB.
+peak_rss_mib() { awk '$1 == "VmHWM:" { printf "%.0f", $2 / 1024 }' "/proc/$SERVER_PID/status"; }
+
+# Where the server's resident memory is now (/proc/PID/status): anonymous (heaps, stacks) and file-backed
+# (code, mapped files), in MiB.
+rss_parts() { awk '$1 ~ /^Rss(Anon|File|Shmem):$/ { printf "%s %.0f MiB ", $1, $2 / 1024 }' "/proc/$SERVER_PID/status"; }
+
 # CPU time (user + system, all threads) the server has used so far, in clock ticks.
 server_ticks() { awk '{ print $14 + $15 }' "/proc/$SERVER_PID/stat"; }
 
@@ -135,3 +167,18 @@ run_wrk() {
 }
 
 figure() { sed -n "s/.* $1=\([^ ]*\).*/\1/p"; }
+
+# serve_sky_field SIZE: writes a SIZE x SIZE synthetic field "sky" under $SCRATCH/data, starts the server on it with
+# the default limits and waits for its pyramid; sets PORT, BASE and VERSION (the band version for tile URLs).
+serve_sky_field() {
+    make_field "$SCRATCH/data/sky.fits" "$1"
+    echo "== starting the server"
+    PORT=$(free_port)
+    BASE="http://127.0.0.1:$PORT"
+    start_server "$PORT" "$SCRATCH/data" "$SCRATCH/cache"
+    timeout 660 bash -c 'until curl -sf "$0/healthz" >/dev/null; do sleep 0.3; done' "$BASE"
+    wait_ready "$BASE" sky 600
+    VERSION=$(band_version "$BASE" sky)
+    grep -o 'GC heap limit.*' "$SERVER_LOG" | sed 's/^/   /' || true
+    echo "   machine load before: $(cut -d' ' -f1-3 /proc/loadavg) on $(nproc) cores (p99 figures mean little when it is far above the core count)"
+}

@@ -47,6 +47,7 @@ measure() {
     run_wrk warm.lua "$SECONDS_EACH" "$base" "$WORK/memory-$preset-warm.txt" >"$WORK/memory-$preset-wrk.txt"
     run_wrk cold.lua "$SECONDS_EACH" "$base" "$WORK/memory-$preset-cold.tsv" 16 >>"$WORK/memory-$preset-wrk.txt"
     local peak after
+    echo "$preset field: $(grep -o 'GC heap limit.*' "$SERVER_LOG" || echo 'no GC heap limit line in the log'); after the load $(rss_parts)" >&2
     peak=$(awk '$1 == "VmHWM:" { print int($2 / 1024) }' "/proc/$SERVER_PID/status")
     after=$(awk '$1 == "VmRSS:" { print int($2 / 1024) }' "/proc/$SERVER_PID/status")
     stop_server

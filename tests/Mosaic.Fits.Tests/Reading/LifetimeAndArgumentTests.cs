@@ -37,6 +37,9 @@ public sealed class LifetimeAndArgumentTests : IDisposable
         Assert.Equal(0, e.HduIndex);
         Assert.Throws<FitsFormatException>(() => plane.ReadRow(150, 0, new float[10]));
         Assert.Throws<FitsFormatException>(() => plane.ReadValue(299, 199));
+        // A block read (one positional read per row, straight from the descriptor) reports the same error.
+        var block = Assert.Throws<FitsFormatException>(() => plane.ReadBlock(0, 199, 256, 50, -1, rows));
+        Assert.Contains("truncated data", block.Message);
         // The start of the data is still there and still readable: the process and the handle are fine.
         Assert.Equal(0.0, plane.ReadValue(0, 0));
     }
@@ -50,6 +53,7 @@ public sealed class LifetimeAndArgumentTests : IDisposable
         Assert.Throws<ObjectDisposedException>(() => plane.ReadValue(0, 0));
         Assert.Throws<ObjectDisposedException>(() => plane.ReadRow(0, 0, new float[10]));
         Assert.Throws<ObjectDisposedException>(() => plane.ReadRows(0, 1, new float[10]));
+        Assert.Throws<ObjectDisposedException>(() => plane.ReadBlock(0, 9, 10, 10, -1, new float[100]));
     }
 
     [Fact]

@@ -41,12 +41,18 @@ public sealed class LookupTableFillTests
             var levelOf = new LevelFunction(Curves[curve], palette);
             var table = LookupTable.Build(new ValueRange(0, 1), levelOf, entries);
             double last = entries - 1;
+            var largestStep = 0;
+            var previous = levelOf.At(0);
             for (var i = 0; i < entries; i++)
             {
                 var direct = levelOf.At(i / last);
                 if (table[i] != direct)
                     Assert.Fail($"{curve}, {palette.GetType().Name}, {entries} entries: entry {i} holds {table[i]}, its own level is {direct}");
+                largestStep = Math.Max(largestStep, Math.Abs(direct - previous));
+                previous = direct;
             }
+            // The step the fill reports decides the table's size: it must be the largest between neighbours' own levels.
+            Assert.Equal(largestStep, table.LargestStep);
         }
     }
 }

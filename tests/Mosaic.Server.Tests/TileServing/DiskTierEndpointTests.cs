@@ -20,6 +20,11 @@ public sealed class DiskTierEndpointTests(ServerDataFixture data) : IClassFixtur
             Assert.Equal("rendered", Assert.Single(answer.Headers.GetValues("X-Tile-Cache")));
             rendered = await answer.Content.ReadAsByteArrayAsync();
             etag = answer.Headers.ETag!.Tag;
+            // The disk tier takes a tile on its second ask (the first is answered from memory).
+            Assert.False(Directory.Exists(Path.Combine(cache, "tiles"))
+                && Directory.EnumerateFiles(Path.Combine(cache, "tiles"), "*.tile", SearchOption.AllDirectories).Any());
+            var second = await client.GetAsync("/tiles/single/2/1/1.png?stretch=sqrt");
+            Assert.Equal("memory", Assert.Single(second.Headers.GetValues("X-Tile-Cache")));
             var disk = first.Services.GetRequiredService<DiskTileStore>();
             Assert.Equal(2048L << 20, disk.CapacityBytes); // the documented default, 2048 MiB
         }

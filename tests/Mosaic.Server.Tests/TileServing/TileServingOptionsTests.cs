@@ -13,7 +13,7 @@ public sealed class TileServingOptionsTests
     public void Defaults_are_the_documented_ones()
     {
         var options = Read();
-        Assert.Equal(128, options.MemoryMegabytes);
+        Assert.Equal(96, options.MemoryMegabytes);
         Assert.Equal(2048, options.DiskMegabytes);
         Assert.Equal(Environment.ProcessorCount, options.RenderThreads);
         Assert.Equal(256, options.RenderQueue);

@@ -65,6 +65,12 @@ public sealed class DiskTileStore
         ArgumentNullException.ThrowIfNull(key);
         var name = DiskTileFile.NameOf(key);
         var path = PathOfName(name);
+        // Most lookups of a new display miss: a stat answers them without the cost of a thrown FileNotFoundException.
+        if (!File.Exists(path))
+        {
+            _index.Remove(name);
+            return null;
+        }
         SafeFileHandle handle;
         try
         {

@@ -1,3 +1,4 @@
+using System.Runtime.CompilerServices;
 using Mosaic.Imaging.Display.Colors;
 
 namespace Mosaic.Imaging.Display.Palettes;
@@ -37,6 +38,7 @@ public sealed record CubehelixPalette : IPalette
 
     public Rgb DefaultMaskedColor => _masked.Value;
 
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     public Rgb Color(double t)
     {
         var lambda = Math.Clamp(double.IsNaN(t) ? 0 : t, 0, 1);

@@ -1,3 +1,4 @@
+using System.Runtime.CompilerServices;
 using Mosaic.Imaging.Display.Colors;
 
 namespace Mosaic.Imaging.Display.Palettes;
@@ -16,6 +17,7 @@ public sealed record GrayPalette : IPalette
     /// <summary>Magenta: far from every gray (chroma about 115 in CIELAB).</summary>
     public Rgb DefaultMaskedColor => new(255, 0, 255);
 
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     public Rgb Color(double t)
     {
         var level = GrayLevel.Of(t);

@@ -1,3 +1,4 @@
+using System.Runtime.CompilerServices;
 using Mosaic.Imaging.Display.Colors;
 
 namespace Mosaic.Imaging.Display.Palettes;
@@ -15,6 +16,7 @@ public sealed record InvertedGrayPalette : IPalette
 
     public Rgb DefaultMaskedColor => new(255, 0, 255);
 
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     public Rgb Color(double t)
     {
         var level = (byte)(255 - GrayLevel.Of(t));

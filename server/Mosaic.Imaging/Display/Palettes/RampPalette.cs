@@ -1,3 +1,4 @@
+using System.Runtime.CompilerServices;
 using Mosaic.Imaging.Display.Colors;
 
 namespace Mosaic.Imaging.Display.Palettes;
@@ -38,6 +39,7 @@ public sealed record RampPalette : IPalette
 
     public Rgb DefaultMaskedColor => _masked.Value;
 
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     public Rgb Color(double t)
     {
         var x = Math.Clamp(double.IsNaN(t) ? 0 : t, 0, 1) * (_anchors.Length - 1);

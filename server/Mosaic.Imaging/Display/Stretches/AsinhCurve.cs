@@ -1,3 +1,5 @@
+using System.Runtime.CompilerServices;
+
 namespace Mosaic.Imaging.Display.Stretches;
 
 /// <summary>The asinh stretch with every parameter physical: t(u) for v = lo + u (hi - lo).</summary>
@@ -37,11 +39,13 @@ public sealed class AsinhCurve : IStretchCurve
         return Math.Clamp((v - _lo) / _width, 0, 1);
     }
 
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     public double Map(double u)
     {
         var t = (F(_lo + Math.Clamp(u, 0, 1) * _width) - _fLo) / _fSpan;
         return Math.Clamp(t, 0, 1);
     }
 
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private double F(double v) => Math.Asinh((v - _pivot) / _soft);
 }

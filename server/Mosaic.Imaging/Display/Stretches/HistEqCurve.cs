@@ -1,3 +1,4 @@
+using System.Runtime.CompilerServices;
 using Mosaic.Imaging.Display.Limits;
 using Mosaic.Imaging.Statistics;
 
@@ -32,6 +33,7 @@ public sealed class HistEqCurve : IStretchCurve
     /// <summary>False where the limits hold no pixel and the curve falls back to linear.</summary>
     public bool HasPixels => _fSpan > 0;
 
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     public double Map(double u)
     {
         var c = StretchParameters.Clamp(u);

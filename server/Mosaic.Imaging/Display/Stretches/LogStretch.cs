@@ -1,3 +1,5 @@
+using System.Runtime.CompilerServices;
+
 namespace Mosaic.Imaging.Display.Stretches;
 
 /// <summary>t = ln(1 + a u) / ln(1 + a), a &gt; 0: larger a lifts the faint end more.</summary>
@@ -27,6 +29,7 @@ public sealed record LogStretch : IStretch, IStretchCurve
     public IStretchCurve Resolve(StretchContext context) => this;
 
     // log1p would keep precision for tiny a u; Math has none, and ln(1 + x) loses nothing visible at 8 bits.
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     public double Map(double u) => Math.Log(1 + A * StretchParameters.Clamp(u)) / _norm;
 
     public double Inverse(double t) => Math.Clamp((Math.Exp(StretchParameters.Clamp(t) * _norm) - 1) / A, 0, 1);

@@ -1,3 +1,5 @@
+using System.Runtime.CompilerServices;
+
 namespace Mosaic.Imaging.Display.Stretches;
 
 /// <summary>t = u^gamma, gamma &gt; 0: above 1 it darkens the faint end, below 1 it lifts it.</summary>
@@ -22,6 +24,7 @@ public sealed record PowerStretch : IStretch, IStretchCurve
 
     public IStretchCurve Resolve(StretchContext context) => this;
 
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     public double Map(double u) => Math.Pow(StretchParameters.Clamp(u), Gamma);
 
     public double Inverse(double t) => Math.Pow(StretchParameters.Clamp(t), 1 / Gamma);
