@@ -33,15 +33,7 @@ public class SharedMultiplexer : DispatchProxy
             case nameof(IConnectionMultiplexer.CloseAsync):
                 return Task.CompletedTask;
         }
-        try
-        {
-            var result = targetMethod.Invoke(_inner, args);
-            return result is ISubscriber subscriber ? SharedSubscriber.Over(subscriber) : result;
-        }
-        catch (TargetInvocationException e) when (e.InnerException is not null)
-        {
-            System.Runtime.ExceptionServices.ExceptionDispatchInfo.Throw(e.InnerException);
-            throw;
-        }
+        var result = ProxyCall.Forward(targetMethod, _inner, args);
+        return result is ISubscriber subscriber ? SharedSubscriber.Over(subscriber) : result;
     }
 }

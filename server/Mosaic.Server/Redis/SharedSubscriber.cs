@@ -24,17 +24,12 @@ public class SharedSubscriber : DispatchProxy
         ArgumentNullException.ThrowIfNull(targetMethod);
         try
         {
-            var result = targetMethod.Invoke(_inner, args);
+            var result = ProxyCall.Forward(targetMethod, _inner, args);
             return targetMethod.Name == nameof(ISubscriber.UnsubscribeAllAsync) && result is Task task ? IgnoreClosed(task) : result;
         }
-        catch (TargetInvocationException e) when (e.InnerException is ObjectDisposedException && targetMethod.Name == nameof(ISubscriber.UnsubscribeAll))
+        catch (ObjectDisposedException) when (targetMethod.Name == nameof(ISubscriber.UnsubscribeAll))
         {
             return null;
-        }
-        catch (TargetInvocationException e) when (e.InnerException is not null)
-        {
-            System.Runtime.ExceptionServices.ExceptionDispatchInfo.Throw(e.InnerException);
-            throw;
         }
     }
 

@@ -18,10 +18,7 @@ DATA=$(demo_data default)
 echo "== $(date -u '+%F %T') UTC, load average $(load_average), server on CPUs $SERVER_CPUS, Chromium unpinned, 1280 x 800"
 COLD=()
 for run in $(seq "$RUNS"); do
-    PORT=$(free_port)
-    BASE="http://127.0.0.1:$PORT"
-    start_server "$PORT" "$DATA" "$WORK/cache-default"
-    wait_ready "$BASE" demo 900
+    serve_field "$DATA" "$WORK/cache-default" demo 900
     # A shared link: the red band's whole field, centred, at a quarter of full resolution.
     LINK="$BASE/?field=demo&band=red&hdu=canvas&x=4220.5&y=4142.5&z=4"
     OUT=$(node --experimental-websocket "$LOAD/first_screen_browser.mjs" "$LINK")

@@ -19,10 +19,7 @@ trap stop_server EXIT
 
 build_server
 DATA=$(demo_data default)
-PORT=$(free_port)
-BASE="http://127.0.0.1:$PORT"
-start_server "$PORT" "$DATA" "$WORK/cache-default"
-wait_ready "$BASE" demo 900
+serve_field "$DATA" "$WORK/cache-default" demo 900
 $PY "$LOAD/tile_urls.py" --native --limits "$BASE" demo "$COUNT" >"$WORK/cold-paths.tsv"
 
 # A short run first so the JIT has settled; its displays are never asked for again.

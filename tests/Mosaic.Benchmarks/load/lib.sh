@@ -168,16 +168,21 @@ run_wrk() {
 
 figure() { sed -n "s/.* $1=\([^ ]*\).*/\1/p"; }
 
+# serve_field DATA CACHE FIELD SECONDS: starts the server on a free loopback port and waits until FIELD's pyramids
+# are ready; sets PORT and BASE (and SERVER_PID, SERVER_LOG as start_server does).
+serve_field() {
+    PORT=$(free_port)
+    BASE="http://127.0.0.1:$PORT"
+    start_server "$PORT" "$1" "$2"
+    wait_ready "$BASE" "$3" "$4"
+}
+
 # serve_sky_field SIZE: writes a SIZE x SIZE synthetic field "sky" under $SCRATCH/data, starts the server on it with
 # the default limits and waits for its pyramid; sets PORT, BASE and VERSION (the band version for tile URLs).
 serve_sky_field() {
     make_field "$SCRATCH/data/sky.fits" "$1"
     echo "== starting the server"
-    PORT=$(free_port)
-    BASE="http://127.0.0.1:$PORT"
-    start_server "$PORT" "$SCRATCH/data" "$SCRATCH/cache"
-    timeout 660 bash -c 'until curl -sf "$0/healthz" >/dev/null; do sleep 0.3; done' "$BASE"
-    wait_ready "$BASE" sky 600
+    serve_field "$SCRATCH/data" "$SCRATCH/cache" sky 600
     VERSION=$(band_version "$BASE" sky)
     grep -o 'GC heap limit.*' "$SERVER_LOG" | sed 's/^/   /' || true
     echo "   machine load before: $(cut -d' ' -f1-3 /proc/loadavg) on $(nproc) cores (p99 figures mean little when it is far above the core count)"

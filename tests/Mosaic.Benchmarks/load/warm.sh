@@ -16,10 +16,7 @@ trap stop_server EXIT
 
 build_server
 DATA=$(demo_data default)
-PORT=$(free_port)
-BASE="http://127.0.0.1:$PORT"
-start_server "$PORT" "$DATA" "$WORK/cache-default"
-wait_ready "$BASE" demo 900
+serve_field "$DATA" "$WORK/cache-default" demo 900
 $PY "$LOAD/tile_urls.py" "$BASE" demo "$COUNT" >"$WORK/warm-paths.txt"
 warm_up "$BASE" "$WORK/warm-paths.txt"
 STATIC=/lib/signalr/signalr.min.js
