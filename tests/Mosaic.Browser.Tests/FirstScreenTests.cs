@@ -23,7 +23,9 @@ public sealed partial class FirstScreenTests(MosaicSite site)
         await using var viewer = await site.OpenViewerAsync();
         await viewer.WaitForTilesAsync();
         // W3C Resource Timing: when each script's fetch started and its response ended, on the page's clock. A module
-        // found through another's import can only be asked for once that one has arrived.
+        // found through an import can only be asked for once a module importing it has arrived, so each must be
+        // asked for before the first of its importers arrives. (Not before the first module of all arrives: under
+        // load the parser may reach the last preload link after some response is in, which is no late discovery.)
         var scripts = await viewer.Page.EvaluateAsync<ScriptTiming[]>("""
             () => performance.getEntriesByType('resource')
               .filter(e => new URL(e.name).pathname.endsWith('.js'))
@@ -31,12 +33,22 @@ public sealed partial class FirstScreenTests(MosaicSite site)
             """);
         var preloads = await viewer.Page.EvaluateAsync<string[]>(
             "() => [...document.querySelectorAll('link[rel=modulepreload]')].map(l => l.getAttribute('href'))");
+        var importMap = await viewer.Page.EvaluateAsync<Dictionary<string, string>>(
+            "() => JSON.parse(document.querySelector('script[type=importmap]').textContent).imports");
         Assert.True(scripts.Length > 40, $"only {scripts.Length} scripts loaded");
         Assert.Contains(scripts, s => s.Path == "lib/leaflet/leaflet-src.esm.js");
         Assert.Equal(scripts.Length, scripts.Select(s => s.Path).Distinct().Count());
-        var firstArrival = scripts.Min(s => s.End);
-        foreach (var script in scripts)
-            Assert.True(script.Start < firstArrival, $"{script.Path} was asked for at {script.Start:F0} ms, after a module arrived at {firstArrival:F0} ms");
+        var arrival = scripts.ToDictionary(s => s.Path, s => s.End);
+        var importers = scripts.SelectMany(s => ImportsOf(s.Path, importMap).Select(target => (Target: target, Importer: s.Path)))
+            .ToLookup(edge => edge.Target, edge => edge.Importer);
+        foreach (var script in scripts.Where(s => !EntryModules.Contains(s.Path)))
+        {
+            var importing = importers[script.Path].Where(arrival.ContainsKey).ToList();
+            Assert.True(importing.Count > 0, $"no loaded module imports {script.Path}");
+            var firstImporter = importing.MinBy(path => arrival[path])!;
+            Assert.True(script.Start < arrival[firstImporter],
+                $"{script.Path} was asked for at {script.Start:F0} ms, after {firstImporter}, which imports it, arrived at {arrival[firstImporter]:F0} ms");
+        }
         // Each preload was used: the page runs every module it asks for.
         Assert.Equal(preloads.Order(StringComparer.Ordinal), scripts.Select(s => s.Path).Except(EntryModules).Order(StringComparer.Ordinal));
         Assert.Empty(viewer.PageErrors);
@@ -115,10 +127,31 @@ public sealed partial class FirstScreenTests(MosaicSite site)
         Assert.All(viewer.PageErrors, e => Assert.Contains("api/fields", e, StringComparison.Ordinal));
     }
 
+    /// <summary>
+    /// Static imports of a served module (import ... from 'x', import 'x', export ... from 'x'), as served paths:
+    /// relative specifiers against the module's folder, bare ones through the page's import map.
+    /// </summary>
+    private static IEnumerable<string> ImportsOf(string path, IReadOnlyDictionary<string, string> importMap)
+    {
+        var file = Path.Combine(RepositoryLayout.ServerProjectDirectory, "wwwroot", path);
+        var folder = new Uri("http://page/" + path);
+        foreach (Match match in ImportSpecifier().Matches(File.ReadAllText(file)))
+        {
+            var specifier = match.Groups["spec"].Value;
+            if (importMap.TryGetValue(specifier, out var mapped)) specifier = mapped;
+            else if (!specifier.StartsWith('.')) continue;
+            yield return new Uri(folder, specifier).AbsolutePath.TrimStart('/');
+        }
+    }
+
+    [GeneratedRegex(@"(?:\bfrom|^\s*import)\s*(?<q>['""])(?<spec>[^'""\n]+)\k<q>", RegexOptions.Multiline)]
+    private static partial Regex ImportSpecifier();
+
     // Filled by Playwright from the page's objects.
     private sealed class ScriptTiming
     {
         public string Path { get; set; } = "";
+        public string Initiator { get; set; } = "";
         public double Start { get; set; }
         public double End { get; set; }
     }

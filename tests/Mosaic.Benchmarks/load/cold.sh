@@ -22,8 +22,8 @@ DATA=$(demo_data default)
 serve_field "$DATA" "$WORK/cache-default" demo 900
 $PY "$LOAD/tile_urls.py" --native --limits "$BASE" demo "$COUNT" >"$WORK/cold-paths.tsv"
 
-# A short run first so the JIT has settled; its displays are never asked for again.
-run_wrk cold.lua 5 "$BASE" "$WORK/cold-paths.tsv" 1000000 >/dev/null
+# Until the runtime has compiled the hot paths optimised (see settle); these displays are never asked for again.
+settle cold.lua "$BASE" "$WORK/cold-paths.tsv" 1
 echo "== $(date -u '+%F %T') UTC, load average $(load_average), server on CPUs $SERVER_CPUS, wrk -t1 -c64 on CPUs $WRK_CPUS, ${SECONDS_EACH} s each"
 EACH=$(run_wrk cold.lua "$SECONDS_EACH" "$BASE" "$WORK/cold-paths.tsv" 1)
 SCREEN=$(run_wrk cold.lua "$SECONDS_EACH" "$BASE" "$WORK/cold-paths.tsv" 16)

@@ -168,6 +168,22 @@ run_wrk() {
 
 figure() { sed -n "s/.* $1=\([^ ]*\).*/\1/p"; }
 
+# settle LUA BASE [script arguments]: 5 s runs until the server's CPU time per response has settled (two runs in a
+# row within 5 %, after at least four; at most twelve), each printed to stderr. A fresh server's hot paths run
+# first as quickly compiled code and are compiled again optimised in the background: measured on the cold tiles,
+# CPU time per response fell from about 1,700 to 860 us over the first 40 s of load, so a fixed short warm-up
+# measures the runtime's tiering rather than the server.
+settle() {
+    local lua=$1 base=$2 round cpu last=0
+    shift 2
+    for round in 1 2 3 4 5 6 7 8 9 10 11 12; do
+        cpu=$(run_wrk "$lua" 5 "$base" "$@" | figure server_cpu_us_per_response)
+        echo "   settling, run $round: ${cpu} us of server CPU a response" >&2
+        if [ "$round" -ge 4 ] && awk -v a="$cpu" -v b="$last" 'BEGIN { exit !(b > 0 && a > 0.95 * b && a < 1.05 * b) }'; then return; fi
+        last=$cpu
+    done
+}
+
 # serve_field DATA CACHE FIELD SECONDS: starts the server on a free loopback port and waits until FIELD's pyramids
 # are ready; sets PORT and BASE (and SERVER_PID, SERVER_LOG as start_server does).
 serve_field() {
