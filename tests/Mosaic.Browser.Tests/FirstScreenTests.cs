@@ -129,7 +129,9 @@ public sealed partial class FirstScreenTests(MosaicSite site)
 
     /// <summary>
     /// Static imports of a served module (import ... from 'x', import 'x', export ... from 'x'), as served paths:
-    /// relative specifiers against the module's folder, bare ones through the page's import map.
+    /// relative specifiers against the module's folder, bare ones through the page's import map. Read here rather
+    /// than through the server's ModuleGraph, which writes the preloads: the test should not check them against
+    /// their own source.
     /// </summary>
     private static IEnumerable<string> ImportsOf(string path, IReadOnlyDictionary<string, string> importMap)
     {

@@ -7,6 +7,12 @@ public static class DemoField
 {
     public const string FieldId = "demo";
 
+    /// <summary>The sizes `generate-demo --preset` and the server's --demo-preset accept.</summary>
+    public static IReadOnlyList<string> Presets { get; } = ["small", "default", "large"];
+
+    /// <summary>The presets as a message names them: "small, default or large".</summary>
+    public static string PresetChoices => $"{string.Join(", ", Presets.SkipLast(1))} or {Presets[^1]}";
+
     public static void EnsureGenerated(MosaicOptions options)
     {
         var folder = Path.Combine(options.DataDirectory, FieldId);
@@ -55,7 +61,7 @@ public static class DemoField
             "small" => DemoFieldOptions.Small(folder),
             "default" => DemoFieldOptions.Default(folder),
             "large" => DemoFieldOptions.Large(folder),
-            _ => throw new ArgumentException($"unknown preset '{preset}': use small, default or large"),
+            _ => throw new ArgumentException($"unknown preset '{preset}': use {PresetChoices}"),
         };
         var clock = System.Diagnostics.Stopwatch.StartNew();
         var shown = -1;

@@ -39,12 +39,13 @@ public sealed class MosaicOptions
         var data = configuration["data"];
         var cache = configuration["cache"] ?? Path.Combine(XdgFolder("XDG_CACHE_HOME", ".cache"), "mosaic");
         var state = configuration["state"] ?? Path.Combine(XdgFolder("XDG_DATA_HOME", Path.Combine(".local", "share")), "mosaic", "state");
+        var preset = DemoPresetFrom(configuration["demo-preset"]);
         return new MosaicOptions
         {
-            DataDirectory = Path.GetFullPath(data ?? Path.Combine(XdgFolder("XDG_DATA_HOME", Path.Combine(".local", "share")), "mosaic", "demo-data")),
+            DataDirectory = Path.GetFullPath(data ?? Path.Combine(XdgFolder("XDG_DATA_HOME", Path.Combine(".local", "share")), "mosaic", DemoDataFolder(preset))),
             CacheDirectory = Path.GetFullPath(cache),
             ServesDemo = data is null,
-            DemoPreset = configuration["demo-preset"] ?? "default",
+            DemoPreset = preset,
             StateDirectory = Path.GetFullPath(state),
             CutoutPixelLimit = CutoutLimit(configuration["cutout-limit"]),
             Access = Mosaic.Server.Access.AccessOptions.FromConfiguration(configuration),
@@ -53,6 +54,17 @@ public sealed class MosaicOptions
             Tiles = Mosaic.Server.Tiles.TileServingOptions.FromConfiguration(configuration),
         };
     }
+
+    private static string DemoPresetFrom(string? text)
+    {
+        var preset = string.IsNullOrWhiteSpace(text) ? "default" : text.Trim();
+        if (!DemoField.Presets.Contains(preset))
+            throw new ArgumentException($"--demo-preset must be {DemoField.PresetChoices}; got '{text}'.");
+        return preset;
+    }
+
+    // One folder a preset, so asking for another preset generates it rather than serving the one already there.
+    private static string DemoDataFolder(string preset) => preset == "default" ? "demo-data" : $"demo-data-{preset}";
 
     private static long CutoutLimit(string? text)
     {

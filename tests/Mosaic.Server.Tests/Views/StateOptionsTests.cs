@@ -3,7 +3,7 @@ using Mosaic.Server.Hosting;
 
 namespace Mosaic.Server.Tests.Views;
 
-/// <summary>--state and --cutout-limit as MosaicOptions reads them.</summary>
+/// <summary>--state, --cutout-limit and --demo-preset as MosaicOptions reads them.</summary>
 public sealed class StateOptionsTests
 {
     private static MosaicOptions Read(params (string Key, string Value)[] settings) =>
@@ -37,5 +37,26 @@ public sealed class StateOptionsTests
     {
         var error = Assert.Throws<ArgumentException>(() => Read(("cutout-limit", value)));
         Assert.Contains("--cutout-limit", error.Message);
+    }
+
+    [Fact]
+    public void EachDemoPresetHasItsOwnFolderSoAnotherPresetIsNotServedInItsPlace()
+    {
+        var folders = new[] { "small", "default", "large" }.Select(preset => Read(("demo-preset", preset))).ToList();
+        Assert.All(folders, options => Assert.True(options.ServesDemo));
+        Assert.Equal(["small", "default", "large"], folders.Select(o => o.DemoPreset));
+        Assert.Equal(3, folders.Select(o => o.DataDirectory).Distinct().Count());
+        // The default preset keeps the folder the README names.
+        Assert.Equal(Read().DataDirectory, folders[1].DataDirectory);
+        Assert.EndsWith(Path.Combine("mosaic", "demo-data"), folders[1].DataDirectory);
+    }
+
+    [Fact]
+    public void AnUnknownDemoPresetStopsTheStartLikeAnyBadOption()
+    {
+        var error = Assert.Throws<ArgumentException>(() => Read(("demo-preset", "huge")));
+        Assert.Contains("--demo-preset", error.Message);
+        Assert.Contains("'huge'", error.Message);
+        Assert.True(ServerArguments.IsOptionError(error));
     }
 }
